@@ -15,6 +15,7 @@ public static class QuickBench
     static readonly (string Name, Func<Result> Run)[] All =
     [
         ("distances", CosmologyBenchmarks.Quick),
+        ("lens-solver", ImageFinderBenchmarks.Quick),
     ];
 
     /// <summary>Runs the named comparisons (all when none named) and prints one line each.</summary>

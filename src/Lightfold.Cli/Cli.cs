@@ -14,6 +14,7 @@ public static class Cli
         var root = new RootCommand("Lightfold: mock catalogs of strongly lensed transients (simulated, not observed).");
         root.Subcommands.Add(ConfigCommand.Create(context));
         root.Subcommands.Add(DistancesCommand.Create(context));
+        root.Subcommands.Add(LensCommand.Create(context));
 
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -1,0 +1,36 @@
+namespace Lightfold.Catalog;
+
+/// <summary>Every catalog column name, declared once (snake_case with the unit as suffix; see DESIGN.md "catalog contract").</summary>
+public static class Columns
+{
+#pragma warning disable CS1591 // the names are their own documentation; units are in the suffix
+    // systems
+    public const string SystemId = "system_id";
+    public const string Weight = "weight";
+    public const string ZLens = "z_lens";
+    public const string ZSource = "z_source";
+    public const string LensSigmaVKms = "lens_sigma_v_kms";
+    public const string ThetaEArcsec = "theta_e_arcsec";
+    public const string LensQ = "lens_q";
+    public const string LensPaDeg = "lens_pa_deg";
+    public const string ShearGamma = "shear_gamma";
+    public const string ShearPaDeg = "shear_pa_deg";
+    public const string SourceXArcsec = "source_x_arcsec";
+    public const string SourceYArcsec = "source_y_arcsec";
+    public const string NImages = "n_images";
+    public const string TransientType = "transient_type";
+    public const string T0Mjd = "t0_mjd";
+    public const string TimeDelayDistanceMpc = "time_delay_distance_mpc";
+    public const string Detected = "detected";
+
+    // images
+    public const string ImageIndex = "image_index";
+    public const string XArcsec = "x_arcsec";
+    public const string YArcsec = "y_arcsec";
+    public const string Magnification = "magnification";
+    public const string DelayDays = "delay_days";
+    public const string Kappa = "kappa";
+    public const string Gamma = "gamma";
+    public const string KappaStar = "kappa_star";
+#pragma warning restore CS1591
+}
