@@ -15,6 +15,8 @@ public static class Cli
         root.Subcommands.Add(ConfigCommand.Create(context));
         root.Subcommands.Add(DistancesCommand.Create(context));
         root.Subcommands.Add(LensCommand.Create(context));
+        root.Subcommands.Add(SimulateCommand.Create(context));
+        root.Subcommands.Add(ForecastCommand.Create(context));
 
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -22,6 +22,11 @@ public static class Columns
     public const string T0Mjd = "t0_mjd";
     public const string TimeDelayDistanceMpc = "time_delay_distance_mpc";
     public const string Detected = "detected";
+    public const string OnCaustic = "on_caustic";
+    public const string PeakAbsoluteBMag = "peak_absolute_b_mag";
+    public const string MaxDelayDays = "max_delay_days";
+    public const string MaxSeparationArcsec = "max_separation_arcsec";
+    public const string TotalMagnification = "total_magnification";
 
     // images
     public const string ImageIndex = "image_index";

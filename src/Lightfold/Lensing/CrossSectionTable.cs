@@ -102,6 +102,9 @@ public sealed class CrossSectionTable
 
     static int Index(int iq, int ig, int ia) => (iq * NG + ig) * NA + ia;
 
+    /// <summary>The largest ≥2-image area on the grid [θ_E²] (a bound for rejection sampling).</summary>
+    public double MaxAtLeastTwo => two.Max();
+
     /// <summary>Whether (q, γ) lies inside the table's domain.</summary>
     public static bool Covers(double axisRatio, double shearGamma)
         => axisRatio >= MinAxisRatio && axisRatio <= 1.0 && shearGamma >= 0 && shearGamma <= MaxShear;
