@@ -22,6 +22,9 @@ public static class CatalogSchema
     public static string PartPath(string directory, string table, int shard)
         => Path.Combine(directory, table, $"shard={shard:D4}", "part.parquet");
 
+    /// <summary>Builders of the tables later stages add (observations, …), for schema listings.</summary>
+    public static IReadOnlyList<Func<int, TableBuffer>> ExtraTables { get; } = [];
+
     /// <summary>An empty systems buffer.</summary>
     public static TableBuffer Systems(int capacity) => new(SystemsTable,
     [

@@ -16,41 +16,6 @@ namespace Lightfold.Tests.Cli;
 /// </summary>
 public class LensCommandContractTests
 {
-    sealed record Contract(double ThetaE, double Q, double PaDeg, double Gamma, double ShearPaDeg)
-    {
-        double PhiL => (90 - PaDeg) * Math.PI / 180;
-        double G1 => Gamma * Math.Cos(2 * (90 - ShearPaDeg) * Math.PI / 180);
-        double G2 => Gamma * Math.Sin(2 * (90 - ShearPaDeg) * Math.PI / 180);
-
-        public double Kappa(double x, double y)
-        {
-            double xl = x * Math.Cos(PhiL) + y * Math.Sin(PhiL), yl = -x * Math.Sin(PhiL) + y * Math.Cos(PhiL);
-            return ThetaE / (2 * Math.Sqrt(Q * xl * xl + yl * yl / Q));
-        }
-
-        // Deflection from κ by 1-D integrals (Keeton 2001 eqs. 4–5 with κ(ξ) = θ_E/(2√q ξ), ξ² = x′² + y′²/q²).
-        public (double Ax, double Ay) Alpha(double x, double y)
-        {
-            double c = Math.Cos(PhiL), s = Math.Sin(PhiL);
-            double xl = x * c + y * s, yl = -x * s + y * c, e = 1 - Q * Q;
-            double J(int n) => Quadrature.Integrate(t =>
-            {
-                double u = t * t, d = 1 - e * u;
-                return 2 * t * ThetaE / (2 * Math.Sqrt(Q) * Math.Sqrt(u * (xl * xl + yl * yl / d))) / Math.Pow(d, n + 0.5);
-            }, 0, 1, 1e-13);
-            double axl = Q * xl * J(0), ayl = Q * yl * J(1);
-            return (axl * c - ayl * s + G1 * x + G2 * y, axl * s + ayl * c + G2 * x - G1 * y);
-        }
-
-        // Isothermal potential is homogeneous of degree 1, so ψ_SIE = θ·α_SIE exactly; plus the shear potential.
-        public double Potential(double x, double y)
-        {
-            var (ax, ay) = Alpha(x, y);
-            double sx = G1 * x + G2 * y, sy = G2 * x - G1 * y;
-            return x * (ax - sx) + y * (ay - sy) + 0.5 * G1 * (x * x - y * y) + G2 * x * y;
-        }
-    }
-
     [Fact]
     public void Lens_command_output_satisfies_the_contract_for_random_configurations()
     {
@@ -59,7 +24,7 @@ public class LensCommandContractTests
         {
             var rng = KeyedRandom.For(53, i, Stage.Population);
             double zl = rng.Uniform(0.1, 1.0), zs = zl + rng.Uniform(0.3, 2.5), sigma = rng.Uniform(150, 320);
-            var c0 = new Contract(0, rng.Uniform(0.3, 1.0), rng.Uniform(-90, 180), rng.Uniform(0, 0.2), rng.Uniform(0, 180));
+            var c0 = new ContractLens(0, rng.Uniform(0.3, 1.0), rng.Uniform(-90, 180), rng.Uniform(0, 0.2), rng.Uniform(0, 180));
             double thetaE = 4 * Math.PI * Math.Pow(sigma / 299792.458, 2)
                             * cosmology.AngularDiameterDistanceMpc(zl, zs) / cosmology.AngularDiameterDistanceMpc(zs) * 648000 / Math.PI;
             var contract = c0 with { ThetaE = thetaE };
