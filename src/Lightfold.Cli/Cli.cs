@@ -17,6 +17,7 @@ public static class Cli
         root.Subcommands.Add(LensCommand.Create(context));
         root.Subcommands.Add(SimulateCommand.Create(context));
         root.Subcommands.Add(ForecastCommand.Create(context));
+        root.Subcommands.Add(LightCurveCommand.Create(context));
 
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -21,10 +21,11 @@ public static class SimulateCommand
         var shards = new Option<int>("--shards") { Description = "number of parts the run is split into", DefaultValueFactory = _ => 1 };
         var threads = new Option<int>("--threads") { Description = "worker threads (default: all cores); output does not depend on it", DefaultValueFactory = _ => 0 };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "no progress on stderr" };
+        var noLightCurves = new Option<bool>("--no-light-curves") { Description = "write systems and images only (same as --set light_curves.enabled=false)" };
         var scenario = new ScenarioOptions();
 
-        var command = new Command("simulate", "Draw lensed transients from the scenario, solve every lens and write the systems and images tables (Parquet)");
-        foreach (var o in new Option[] { output, seed, mode, count, shard, shards, threads, quiet }) command.Options.Add(o);
+        var command = new Command("simulate", "Draw lensed transients from the scenario, solve every lens, observe them and write the systems, images and observations tables (Parquet)");
+        foreach (var o in new Option[] { output, seed, mode, count, shard, shards, threads, quiet, noLightCurves }) command.Options.Add(o);
         scenario.AddTo(command);
         command.SetAction(async (parse, ct) =>
         {
@@ -32,6 +33,7 @@ public static class SimulateCommand
             if (parse.GetValue(seed) is { } s) extra.Add($"run.seed={s}");
             if (parse.GetValue(mode) is { } m) extra.Add($"run.mode={m}");
             if (parse.GetValue(count) is { } c) extra.Add($"run.count={c}");
+            if (parse.GetValue(noLightCurves)) extra.Add("light_curves.enabled=false");
             var loaded = scenario.Load(parse, context, [.. extra]);
             if (parse.GetValue(threads) < 0) throw new InputException($"--threads {parse.GetValue(threads)}: expected ≥ 0");
             var target = new RunTarget(parse.GetValue(output)!, parse.GetValue(shard), parse.GetValue(shards), parse.GetValue(threads), Version);
@@ -60,6 +62,11 @@ public static class SimulateCommand
         if (s.Skipped)
             o.WriteLine($"shard {target.Shard}/{target.Shards} was already complete in {target.OutputDirectory}: nothing written");
         else
-            o.WriteLine($"wrote {s.SystemsWritten:N0} systems and {s.ImagesWritten:N0} images ({mode}; {s.TotalSystems:N0} systems in all shards) to {target.OutputDirectory}");
+        {
+            string obs = scenario.Observing.LightCurves ? $", {s.ObservationsWritten:N0} observations" : "";
+            o.WriteLine($"wrote {s.SystemsWritten:N0} systems, {s.ImagesWritten:N0} images{obs} ({mode}; {s.TotalSystems:N0} systems in all shards) to {target.OutputDirectory}");
+            if (scenario.Observing.LightCurves)
+                o.WriteLine($"detected by the survey: {s.Detected.Count:N0} of these systems, {(s.Detected.Weight / years).ToString("F2", inv)} expected per year");
+        }
     }
 }

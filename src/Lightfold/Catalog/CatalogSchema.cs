@@ -18,15 +18,18 @@ public static class CatalogSchema
     /// <summary>Name of the images table.</summary>
     public const string ImagesTable = "images";
 
+    /// <summary>Name of the observations table.</summary>
+    public const string ObservationsTable = "observations";
+
     /// <summary>Path of one table's part for one shard.</summary>
     public static string PartPath(string directory, string table, int shard)
         => Path.Combine(directory, table, $"shard={shard:D4}", "part.parquet");
 
-    /// <summary>Builders of the tables later stages add (observations, …), for schema listings.</summary>
-    public static IReadOnlyList<Func<int, TableBuffer>> ExtraTables { get; } = [];
+    /// <summary>Every table variant, for schema listings: systems and images without and with light curves, observations.</summary>
+    public static IReadOnlyList<TableBuffer> AllVariants() => [Systems(1, false), Images(1, false), Systems(1, true), Images(1, true), Observations(1)];
 
-    /// <summary>An empty systems buffer.</summary>
-    public static TableBuffer Systems(int capacity) => new(SystemsTable,
+    /// <summary>An empty systems buffer; with light curves it adds the detection columns.</summary>
+    public static TableBuffer Systems(int capacity, bool lightCurves) => new(SystemsTable,
     [
         new ValueColumn<long>(Columns.SystemId, capacity),
         new ValueColumn<double>(Columns.Weight, capacity),
@@ -49,10 +52,19 @@ public static class CatalogSchema
         new ValueColumn<double>(Columns.MaxDelayDays, capacity),
         new ValueColumn<double>(Columns.MaxSeparationArcsec, capacity),
         new ValueColumn<double>(Columns.TotalMagnification, capacity),
+        .. lightCurves
+            ? (ColumnBuffer[])
+            [
+                new ValueColumn<bool>(Columns.Detected, capacity),
+                new ValueColumn<int>(Columns.NDetections, capacity),
+                new ValueColumn<double>(Columns.FirstDetectionMjd, capacity),
+                new ValueColumn<double>(Columns.HostEbvMag, capacity),
+            ]
+            : [],
     ]);
 
-    /// <summary>An empty images buffer.</summary>
-    public static TableBuffer Images(int capacity) => new(ImagesTable,
+    /// <summary>An empty images buffer; with light curves it adds each image's peak observed magnitude.</summary>
+    public static TableBuffer Images(int capacity, bool lightCurves) => new(ImagesTable,
     [
         new ValueColumn<long>(Columns.SystemId, capacity),
         new ValueColumn<int>(Columns.ImageIndex, capacity),
@@ -62,5 +74,24 @@ public static class CatalogSchema
         new ValueColumn<double>(Columns.DelayDays, capacity),
         new ValueColumn<double>(Columns.Kappa, capacity),
         new ValueColumn<double>(Columns.Gamma, capacity),
+        .. lightCurves ? (ColumnBuffer[])[new ValueColumn<double>(Columns.PeakMag, capacity), new TextColumn(Columns.PeakBand, capacity)] : [],
+    ]);
+
+    /// <summary>An empty observations buffer: one row per visit per image, and per unresolved blend (image_index −1).</summary>
+    public static TableBuffer Observations(int capacity) => new(ObservationsTable,
+    [
+        new ValueColumn<long>(Columns.SystemId, capacity),
+        new ValueColumn<int>(Columns.ImageIndex, capacity),
+        new ValueColumn<int>(Columns.BlendGroup, capacity),
+        new ValueColumn<double>(Columns.Mjd, capacity),
+        new TextColumn(Columns.Band, capacity),
+        new ValueColumn<double>(Columns.FluxNjy, capacity),
+        new ValueColumn<double>(Columns.FluxErrNjy, capacity),
+        new ValueColumn<double>(Columns.TrueFluxNjy, capacity),
+        new ValueColumn<double>(Columns.MicroMagnification, capacity),
+        new ValueColumn<double>(Columns.Snr, capacity),
+        new ValueColumn<bool>(Columns.IsDetection, capacity),
+        new ValueColumn<double>(Columns.Depth5SigmaMag, capacity),
+        new ValueColumn<double>(Columns.SeeingFwhmArcsec, capacity),
     ]);
 }

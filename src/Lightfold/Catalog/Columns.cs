@@ -27,6 +27,9 @@ public static class Columns
     public const string MaxDelayDays = "max_delay_days";
     public const string MaxSeparationArcsec = "max_separation_arcsec";
     public const string TotalMagnification = "total_magnification";
+    public const string NDetections = "n_detections";
+    public const string FirstDetectionMjd = "first_detection_mjd";
+    public const string HostEbvMag = "host_ebv_mag";
 
     // images
     public const string ImageIndex = "image_index";
@@ -37,5 +40,20 @@ public static class Columns
     public const string Kappa = "kappa";
     public const string Gamma = "gamma";
     public const string KappaStar = "kappa_star";
+    public const string PeakMag = "peak_mag";
+    public const string PeakBand = "peak_band";
+
+    // observations
+    public const string BlendGroup = "blend_group";
+    public const string Mjd = "mjd";
+    public const string Band = "band";
+    public const string FluxNjy = "flux_njy";
+    public const string FluxErrNjy = "flux_err_njy";
+    public const string TrueFluxNjy = "true_flux_njy";
+    public const string MicroMagnification = "micro_magnification";
+    public const string Snr = "snr";
+    public const string IsDetection = "is_detection";
+    public const string Depth5SigmaMag = "depth_5sigma_mag";
+    public const string SeeingFwhmArcsec = "seeing_fwhm_arcsec";
 #pragma warning restore CS1591
 }

@@ -1,5 +1,7 @@
 using Lightfold.Cosmology;
 using Lightfold.Populations;
+using Lightfold.Survey;
+using Lightfold.Transients;
 
 namespace Lightfold.Configuration;
 
@@ -48,6 +50,48 @@ public sealed record Scenario
     /// <summary>Transients.</summary>
     public SourcePopulation Sources { get; init; } = new();
 
+    /// <summary>Light curves, photometry, survey cadence, noise and detection (the `observations` table).</summary>
+    public ObservingSettings Observing { get; init; } = new();
+
     /// <summary>The resolved configuration as indented JSON (all layers applied, typed).</summary>
     public string ResolvedJson { get; init; } = "{}";
+}
+
+/// <summary>Everything that turns lensed systems into observations.</summary>
+public sealed record ObservingSettings
+{
+    /// <summary>Write the observations table (false: systems and images only).</summary>
+    public bool LightCurves { get; init; } = true;
+    /// <summary>Visits this long before the explosion are recorded too (zero true flux) [days].</summary>
+    public double PreExplosionDays { get; init; } = 30;
+    /// <summary>Light-curve model of each type.</summary>
+    public IReadOnlyDictionary<TransientType, TransientSpec> Models { get; init; } = new Dictionary<TransientType, TransientSpec>();
+    /// <summary>UV line-blanketing suppression shared by the built-in models.</summary>
+    public UvSuppression Uv { get; init; } = new();
+    /// <summary>Survey band names, in table order.</summary>
+    public IReadOnlyList<string> Bands { get; init; } = [];
+    /// <summary>Throughput tables (band name → path) replacing or adding to the built-in bands.</summary>
+    public IReadOnlyDictionary<string, string> BandpassFiles { get; init; } = new Dictionary<string, string>();
+    /// <summary>Mean host-galaxy E(B−V) (exponential distribution; 0 = no host dust) [mag].</summary>
+    public double HostEbvMean { get; init; }
+    /// <summary>Milky Way E(B−V) [mag].</summary>
+    public double MilkyWayEbv { get; init; }
+    /// <summary>R_V of the Cardelli et al. 1989 law.</summary>
+    public double RV { get; init; } = 3.1;
+    /// <summary>Cadence per band (used unless a visit table is given).</summary>
+    public IReadOnlyList<BandCadence> Cadence { get; init; } = [];
+    /// <summary>Days per year a field is observable.</summary>
+    public double SeasonDays { get; init; } = 200;
+    /// <summary>Fraction of visits lost to weather.</summary>
+    public double WeatherLoss { get; init; } = 0.2;
+    /// <summary>Visit-time jitter [days].</summary>
+    public double JitterDays { get; init; } = 0.15;
+    /// <summary>Explicit visit table path ("" = use the cadence).</summary>
+    public string VisitTablePath { get; init; } = "";
+    /// <summary>Images closer than this fraction of the seeing FWHM are unresolved.</summary>
+    public double BlendFractionOfSeeing { get; init; } = 0.7;
+    /// <summary>Photometric noise.</summary>
+    public NoiseModel Noise { get; init; } = new();
+    /// <summary>Detection rule.</summary>
+    public DetectionRule Detection { get; init; } = new();
 }

@@ -1,5 +1,7 @@
 using Lightfold.Cosmology;
 using Lightfold.Populations;
+using Lightfold.Survey;
+using Lightfold.Transients;
 
 namespace Lightfold.Configuration;
 
@@ -22,6 +24,7 @@ public static class ScenarioBinder
         var survey = BindSurvey(r.Section("survey"));
         var sources = BindSources(r.Section("sources"));
         var deflectors = BindDeflectors(r.Section("deflectors"));
+        var observing = BindObserving(r, survey);
         if (deflectors.ZMin >= sources.ZMax)
             throw new InputException($"config key 'deflectors.z_min' = {deflectors.ZMin} must be below 'sources.z_max' = {sources.ZMax}");
         return new Scenario
@@ -33,6 +36,92 @@ public static class ScenarioBinder
             Survey = survey,
             Deflectors = deflectors,
             Sources = sources,
+            Observing = observing,
+        };
+    }
+
+    static ObservingSettings BindObserving(ConfigReader r, SurveyWindow survey)
+    {
+        var lc = r.Section("light_curves");
+        bool enabled = lc.Bool("enabled");
+        double pre = lc.Double("pre_explosion_days", 0, 1000, "days");
+
+        var t = r.Section("transients");
+        var uv = new UvSuppression(t.Double("uv_cutoff_angstrom", 100, 20000, "Å"), t.Double("uv_slope", 0, 20));
+        var models = new Dictionary<TransientType, TransientSpec>();
+        foreach (var type in TransientTypes.All)
+        {
+            var m = t.Section(TransientTypes.Name(type));
+            TransientSpec spec = type switch
+            {
+                TransientType.Ia or TransientType.Ib or TransientType.Ic => new ArnettSpec(
+                    m.Double("ejecta_mass_msun", 0.01, 100, "M☉"), m.Double("nickel_mass_msun", 1e-4, 10, "M☉"),
+                    m.Double("velocity_kms", 100, 100_000, "km/s"), m.Double("opacity_cm2_g", 1e-3, 10, "cm²/g"),
+                    m.Double("temperature_floor_k", 500, 50_000, "K")),
+                TransientType.IIP => new PlateauSpec(
+                    m.Double("energy_1e51_erg", 0.01, 100, "10⁵¹ erg"), m.Double("ejecta_mass_msun", 0.1, 100, "M☉"),
+                    m.Double("progenitor_radius_rsun", 1, 5000, "R☉"), m.Double("opacity_cm2_g", 1e-3, 10, "cm²/g"),
+                    m.Double("nickel_mass_msun", 0, 10, "M☉"), m.Double("recombination_temperature_k", 1000, 20_000, "K"),
+                    m.Double("early_temperature_k", 1000, 100_000, "K"), m.Double("cooling_days", 0.1, 1000, "days")),
+                _ => new BazinSpec(
+                    m.Double("rise_days", 0.1, 1000, "days"), m.Double("fall_days", 0.1, 5000, "days"), m.Double("onset_days", 0, 1000, "days"),
+                    m.Double("early_temperature_k", 1000, 100_000, "K"), m.Double("late_temperature_k", 1000, 100_000, "K"),
+                    m.Double("cooling_days", 0.1, 1000, "days")),
+            };
+            models[type] = spec with
+            {
+                MaxPhaseDays = m.Double("max_phase_days", 1, 3000, "days"),
+                TemplatePath = m.Text("template", 1000),
+                TemplateVelocityKms = m.Double("template_velocity_kms", 100, 100_000, "km/s"),
+            };
+        }
+
+        var p = r.Section("photometry");
+        string[] bands = p.WordList("bands", 1, 20);
+        var files = new Dictionary<string, string>(StringComparer.Ordinal);
+        var filesSection = p.Section("bandpass_files");
+        foreach (string name in p.ChildNames("bandpass_files"))
+            files[name] = filesSection.Text(name, 1000);
+        foreach (string band in bands)
+            if (!files.ContainsKey(band) && !Photometry.BuiltInBands.TryGet(band, out _))
+                throw new InputException($"config key 'photometry.bands' names '{band}', which is neither a built-in band ({string.Join(", ", Photometry.BuiltInBands.Names)}) nor in 'photometry.bandpass_files'");
+        var dust = p.Section("dust");
+        double hostEbv = dust.Double("host_ebv_mean", 0, 5, "mag"), mwEbv = dust.Double("mw_ebv", 0, 5, "mag"), rV = dust.Double("r_v", 1, 10);
+
+        var s = r.Section("survey");
+        string visitTable = s.Text("visit_table", 1000);
+        double blend = s.Double("blend_fraction_of_seeing", 0, 10);
+        var c = s.Section("cadence");
+        double season = c.Double("season_days", 1, 365.25, "days"), weather = c.Double("weather_loss", 0, 0.99), jitter = c.Double("jitter_days", 0, 10, "days");
+        // Every band's cadence is read and checked (so unused bands in a lower layer are not "unknown keys");
+        // the bands in photometry.bands must each have one.
+        var cb = c.Section("bands");
+        var perBand = new Dictionary<string, BandCadence>(StringComparer.Ordinal);
+        foreach (string band in c.ChildNames("bands").Union(bands))
+        {
+            var b = cb.Section(band);
+            perBand[band] = new BandCadence(band, b.Double("revisit_days", 0.01, 1000, "days"), b.Double("depth_5sigma_mag", 10, 35, "mag"),
+                b.Double("depth_sigma_mag", 0, 3, "mag"), b.Double("seeing_median_arcsec", 0.01, 20, "arcsec"), b.Double("seeing_sigma_dex", 0, 2, "dex"));
+        }
+        var cadence = bands.Select(b => perBand[b]).ToList();
+
+        var n = r.Section("noise");
+        var noise = new NoiseModel { SourceFractionAtDepth = n.Double("source_fraction_at_depth", 0, 0.9), FloorMag = n.Double("systematic_floor_mag", 0, 0.1, "mag") };
+        var d = r.Section("detection");
+        var detection = new DetectionRule
+        {
+            MinSnr = d.Double("min_snr", 0, 1000),
+            MinDetections = d.Int("min_detections", 1, 10_000),
+            MinBands = d.Int("min_bands", 1, bands.Length),
+            WindowDays = d.Double("window_days", 0.01, 100_000, "days"),
+            RequireBrighterThanCandle = d.Bool("require_brighter_than_candle"),
+            CandleSigmas = d.Double("candle_sigmas", 0, 10),
+        };
+        return new ObservingSettings
+        {
+            LightCurves = enabled, PreExplosionDays = pre, Models = models, Uv = uv, Bands = bands, BandpassFiles = files,
+            HostEbvMean = hostEbv, MilkyWayEbv = mwEbv, RV = rV, Cadence = cadence, SeasonDays = season, WeatherLoss = weather,
+            JitterDays = jitter, VisitTablePath = visitTable, BlendFractionOfSeeing = blend, Noise = noise, Detection = detection,
         };
     }
 

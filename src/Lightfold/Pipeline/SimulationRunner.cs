@@ -19,9 +19,12 @@ public interface IProgressSink
 /// <param name="Weight">Weight of each row.</param>
 /// <param name="SystemsWritten">Systems rows written by this process.</param>
 /// <param name="ImagesWritten">Images rows written by this process.</param>
+/// <param name="ObservationsWritten">Observations rows written by this process (0 without light curves).</param>
+/// <param name="Detected">Systems meeting the detection rule, and their summed weight (light curves only).</param>
 /// <param name="Skipped">True when the shard was already complete (resume).</param>
 /// <param name="Yield">Expected counts.</param>
-public sealed record RunSummary(long TotalSystems, double Weight, long SystemsWritten, long ImagesWritten, bool Skipped, LensingYield Yield);
+public sealed record RunSummary(long TotalSystems, double Weight, long SystemsWritten, long ImagesWritten, long ObservationsWritten,
+    (long Count, double Weight) Detected, bool Skipped, LensingYield Yield);
 
 /// <summary>Where and how a run writes.</summary>
 /// <param name="OutputDirectory">Dataset folder.</param>
@@ -39,43 +42,77 @@ public sealed record RunTarget(string OutputDirectory, int Shard = 0, int Shards
 /// </remarks>
 public static class SimulationRunner
 {
+    /// <summary>Rows per observations row group.</summary>
+    const int ObservationRowGroup = 1 << 20;
+
+    /// <summary>Systems per compute batch when light curves are on (their rows are held until written).</summary>
+    const int LightCurveBatch = 2048;
+
     /// <summary>Runs one shard.</summary>
     public static async Task<RunSummary> RunAsync(Scenario scenario, RunTarget target, IProgressSink? progress, CancellationToken ct)
     {
         if (target.Shards < 1 || target.Shard < 0 || target.Shard >= target.Shards)
             throw new InputException($"--shard {target.Shard} --shards {target.Shards}: expected 0 ≤ shard < shards");
+        bool lightCurves = scenario.Observing.LightCurves;
+        // Everything read from files is read before anything is written.
+        var observing = lightCurves ? ObservationStage.Create(scenario) : null;
         var sampler = new SystemSampler(scenario);
         var (total, weight) = sampler.RunSize();
         string dir = Path.GetFullPath(target.OutputDirectory);
         if (File.Exists(dir)) throw new InputException($"--out '{target.OutputDirectory}' is a file, not a folder");
         DatasetManifest.EnsureMatches(dir, DatasetManifest.Identity(scenario.ResolvedJson, scenario.Seed, target.Shards, target.ToolVersion));
         if (DatasetManifest.IsComplete(dir, target.Shard))
-            return new RunSummary(total, weight, 0, 0, true, sampler.Yield);
+            return new RunSummary(total, weight, 0, 0, 0, (0, 0), true, sampler.Yield);
 
         long first = total * target.Shard / target.Shards, end = total * (target.Shard + 1) / target.Shards;
-        int batchSize = (int)Math.Min(scenario.Run.BatchSize, Math.Max(1, end - first));
-        var systems = CatalogSchema.Systems(batchSize);
-        var images = CatalogSchema.Images(batchSize * 4);
+        int batchSize = (int)Math.Min(lightCurves ? Math.Min(scenario.Run.BatchSize, LightCurveBatch) : scenario.Run.BatchSize, Math.Max(1, end - first));
+        var systems = CatalogSchema.Systems(batchSize, lightCurves);
+        var images = CatalogSchema.Images(batchSize * 4, lightCurves);
+        var observations = lightCurves ? CatalogSchema.Observations(ObservationRowGroup) : null;
         var drawn = new LensedSystem[batchSize];
+        var records = lightCurves ? Enumerable.Range(0, batchSize).Select(_ => new SystemObservations()).ToArray() : [];
+        var visitLists = lightCurves ? Enumerable.Range(0, batchSize).Select(_ => new List<Survey.Visit>()).ToArray() : [];
         var metadata = Metadata(scenario, sampler, target, total, weight);
 
         await using var systemsWriter = await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.SystemsTable, target.Shard), systems, With(metadata, CatalogSchema.SystemsTable), ct);
         await using var imagesWriter = await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.ImagesTable, target.Shard), images, With(metadata, CatalogSchema.ImagesTable), ct);
+        await using var observationsWriter = observations is null ? null
+            : await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.ObservationsTable, target.Shard), observations, With(observing!.Metadata(metadata), CatalogSchema.ObservationsTable), ct);
         var options = new ParallelOptions { MaxDegreeOfParallelism = target.Threads > 0 ? target.Threads : Environment.ProcessorCount, CancellationToken = ct };
+        long detectedCount = 0;
+        double detectedWeight = 0;
         for (long start = first; start < end; start += batchSize)
         {
             ct.ThrowIfCancellationRequested();
             int n = (int)Math.Min(batchSize, end - start);
             long batchStart = start;
-            Parallel.For(0, n, options, () => 0, (i, _, local) =>
+            Parallel.For(0, n, options, i =>
             {
                 sampler.Draw(batchStart + i, weight, ref drawn[i]);
-                return local;
-            }, _ => { });
-            Fill(drawn.AsSpan(0, n), systems, images);
+                observing?.Simulate(in drawn[i], records[i], visitLists[i]);
+            });
+            Fill(drawn.AsSpan(0, n), systems, images, lightCurves ? records : null, observing?.BandNames);
             await systemsWriter.WriteAsync(systems, ct);
             await imagesWriter.WriteAsync(images, ct);
+            if (observationsWriter is not null)
+            {
+                for (int i = 0; i < n; i++)
+                {
+                    if (records[i].Detected) { detectedCount++; detectedWeight += drawn[i].Weight; }
+                    if (observations!.Count + records[i].Count > ObservationRowGroup && observations.Count > 0)
+                    {
+                        await observationsWriter.WriteAsync(observations, ct);
+                        observations.Count = 0;
+                    }
+                    ObservationStage.Append(drawn[i].SystemId, records[i], observations, observing!.BandNames);
+                }
+            }
             progress?.Report(start + n - first, end - first);
+        }
+        if (observationsWriter is not null)
+        {
+            await observationsWriter.WriteAsync(observations!, ct);
+            await observationsWriter.CommitAsync();
         }
         await systemsWriter.CommitAsync();
         await imagesWriter.CommitAsync();
@@ -86,8 +123,10 @@ public static class SimulationRunner
             ["first_system_id"] = first,
             ["systems"] = systemsWriter.RowsWritten,
             ["images"] = imagesWriter.RowsWritten,
+            ["observations"] = observationsWriter?.RowsWritten ?? 0,
         });
-        return new RunSummary(total, weight, systemsWriter.RowsWritten, imagesWriter.RowsWritten, false, sampler.Yield);
+        return new RunSummary(total, weight, systemsWriter.RowsWritten, imagesWriter.RowsWritten, observationsWriter?.RowsWritten ?? 0,
+            (detectedCount, detectedWeight), false, sampler.Yield);
     }
 
     static Dictionary<string, string> With(Dictionary<string, string> metadata, string table)
@@ -122,7 +161,7 @@ public static class SimulationRunner
         };
     }
 
-    static void Fill(ReadOnlySpan<LensedSystem> drawn, TableBuffer systems, TableBuffer images)
+    static void Fill(ReadOnlySpan<LensedSystem> drawn, TableBuffer systems, TableBuffer images, SystemObservations[]? records, string[]? bandNames)
     {
         systems.Count = 0;
         int imageRows = 0;
@@ -170,5 +209,22 @@ public static class SimulationRunner
         }
         systems.Count = drawn.Length;
         images.Count = row;
+        if (records is null) return;
+        bool[] detected = systems.B(Columns.Detected);
+        int[] nDet = systems.I(Columns.NDetections);
+        double[] firstDet = systems.D(Columns.FirstDetectionMjd), ebv = systems.D(Columns.HostEbvMag);
+        double[] peakMag = images.D(Columns.PeakMag);
+        string[] peakBand = images.S(Columns.PeakBand);
+        row = 0;
+        for (int i = 0; i < drawn.Length; i++)
+        {
+            var o = records[i];
+            detected[i] = o.Detected; nDet[i] = o.Detections; firstDet[i] = o.FirstDetectionMjd; ebv[i] = o.HostEbv;
+            for (int a = 0; a < drawn[i].ImageCount; a++, row++)
+            {
+                peakMag[row] = o.PeakMag[a];
+                peakBand[row] = o.PeakBand[a] >= 0 ? bandNames![o.PeakBand[a]] : "";
+            }
+        }
     }
 }

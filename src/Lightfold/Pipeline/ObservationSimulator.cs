@@ -1,0 +1,214 @@
+using Lightfold.Photometry;
+using Lightfold.Randomness;
+using Lightfold.Survey;
+using Lightfold.Transients;
+
+namespace Lightfold.Pipeline;
+
+/// <summary>What the survey records of one lensed system: visits, true and noisy fluxes per image and per blend, detection.</summary>
+/// <remarks>
+/// Image i at a visit at time t has true flux |μ_i| μ_micro,i(t) F(t − t₀ − Δt_i), F the unlensed observed-frame band flux
+/// (time-dilated and K-corrected through <see cref="LightCurveBank"/>, scaled to the drawn peak magnitude, extincted).
+/// Images closer than a fraction of the visit's seeing FWHM are merged (single linkage) into an unresolved group, which gets
+/// an extra row (image index −1) with the summed true flux and its own noise; the per-image rows of a blended image are
+/// what an ideal deblender would measure. Noise: <see cref="NoiseModel"/>, drawn from the system's Noise stream in row order.
+/// </remarks>
+public sealed class ObservationSimulator
+{
+    readonly LightCurveBank bank;
+    readonly ISchedule schedule;
+    readonly NoiseModel noise;
+    readonly DetectionRule detection;
+    readonly ulong seed;
+    readonly double blendFraction, preExplosionDays, hostEbvMean, mwEbv, rV;
+    readonly double[] pivot;
+    readonly double candleMean, candleSigma;
+
+    /// <summary>Prepares the stage.</summary>
+    public ObservationSimulator(ulong seed, LightCurveBank bank, ISchedule schedule, NoiseModel noise, DetectionRule detection,
+        double blendFractionOfSeeing, double preExplosionDays, double hostEbvMean, double mwEbv, double rV, double candleMeanB, double candleSigmaB)
+    {
+        this.seed = seed;
+        this.bank = bank;
+        this.schedule = schedule;
+        this.noise = noise;
+        this.detection = detection;
+        blendFraction = blendFractionOfSeeing;
+        this.preExplosionDays = preExplosionDays;
+        this.hostEbvMean = hostEbvMean;
+        this.mwEbv = mwEbv;
+        this.rV = rV;
+        candleMean = candleMeanB;
+        candleSigma = candleSigmaB;
+        pivot = bank.Bands.Select(b => b.PivotWavelengthAngstrom).ToArray();
+    }
+
+    /// <summary>The bands, in index order.</summary>
+    public IReadOnlyList<Bandpass> Bands => bank.Bands;
+
+    /// <summary>Simulates the observations of <paramref name="s"/> into <paramref name="o"/>.</summary>
+    public void Simulate(in LensedSystem s, double luminosityDistanceCm, double lensLuminosityDistanceCm, SystemObservations o, List<Visit> visits)
+    {
+        o.Clear();
+        o.MinSnr = detection.MinSnr;
+        int nb = bank.Bands.Count, ni = s.ImageCount;
+        var dust = KeyedRandom.For(seed, s.SystemId, Stage.Dust);
+        o.HostEbv = hostEbvMean > 0 ? dust.Exponential(hostEbvMean) : 0.0;
+        Span<double> extinction = stackalloc double[nb];
+        Span<double> scale = stackalloc double[nb];
+        for (int b = 0; b < nb; b++)
+            extinction[b] = Extinction.Magnitudes(pivot[b] / (1 + s.ZSource), o.HostEbv, rV) + Extinction.Magnitudes(pivot[b], mwEbv, rV);
+        bank.EventScales(s.Type, s.ZSource, luminosityDistanceCm, s.PeakAbsoluteBMag, extinction, scale);
+
+        double maxDelay = ni > 0 ? s.DelaysDays[ni - 1] : 0;
+        double end = s.T0Mjd + (1 + s.ZSource) * bank.Models[s.Type].MaxPhaseDays + maxDelay;
+        visits.Clear();
+        schedule.Visits(seed, s.SystemId, s.T0Mjd - preExplosionDays, end, visits);
+
+        var rng = KeyedRandom.For(seed, s.SystemId, Stage.Noise);
+        Span<double> truth = stackalloc double[LensedSystem.MaxImages];
+        Span<int> group = stackalloc int[LensedSystem.MaxImages];
+        Span<double> sx = stackalloc double[LensedSystem.MaxImages];
+        Span<double> sy = stackalloc double[LensedSystem.MaxImages];
+        for (int i = 0; i < ni; i++) { sx[i] = s.Images[i].XArcsec; sy[i] = s.Images[i].YArcsec; }
+        Span<double> candle = stackalloc double[nb];
+        bool useCandle = detection.RequireBrighterThanCandle && s.Type == Populations.TransientType.Ia;
+        if (useCandle) CandlePeaks(s.ZLens, lensLuminosityDistanceCm, candle);
+        bool candlePassed = false;
+
+        foreach (var v in visits)
+        {
+            int b = v.Band;
+            for (int i = 0; i < ni; i++)
+            {
+                double phase = (v.Mjd - s.T0Mjd - s.DelaysDays[i]) / (1 + s.ZSource);
+                truth[i] = Math.Abs(s.Images[i].Magnification) * scale[b] * bank.Q(s.Type, b, s.ZSource, phase);
+            }
+            Groups(sx, sy, ni, blendFraction * v.SeeingFwhmArcsec, group);
+            for (int i = 0; i < ni; i++)
+            {
+                int r = AddRow(o, v, i, group[i], truth[i], 1.0, ref rng);
+                bool resolved = IsAlone(group, ni, i);
+                if (resolved) Track(o, r, i, b, v.Mjd);
+            }
+            for (int g = 0; g < ni; g++)
+            {
+                if (group[g] != g || IsAlone(group, ni, g)) continue;
+                double sum = 0;
+                for (int i = 0; i < ni; i++) if (group[i] == g) sum += truth[i];
+                int r = AddRow(o, v, -1, g, sum, 1.0, ref rng);
+                Track(o, r, -1, b, v.Mjd);
+            }
+            if (useCandle && !candlePassed)
+            {
+                double total = 0;
+                for (int i = 0; i < ni; i++) total += truth[i];
+                candlePassed = total > candle[b];
+            }
+        }
+        Decide(o, useCandle ? candlePassed : !detection.RequireBrighterThanCandle);
+    }
+
+    int AddRow(SystemObservations o, in Visit v, int image, int group, double trueFlux, double micro, ref KeyedRandom rng)
+    {
+        int r = o.Add();
+        double sigma = noise.SigmaNjy(trueFlux, v.Depth5SigmaMag);
+        o.Mjd[r] = v.Mjd; o.Band[r] = v.Band; o.ImageIndex[r] = image; o.BlendGroup[r] = group;
+        o.TrueFlux[r] = trueFlux; o.FluxErr[r] = sigma; o.Flux[r] = trueFlux + sigma * rng.Normal();
+        o.Micro[r] = micro; o.Depth[r] = v.Depth5SigmaMag; o.Seeing[r] = v.SeeingFwhmArcsec;
+        return r;
+    }
+
+    // Per-image peak magnitude among detections (resolved rows only).
+    void Track(SystemObservations o, int row, int image, int band, double mjd)
+    {
+        if (o.Flux[row] / o.FluxErr[row] < detection.MinSnr || image < 0) return;
+        double mag = SyntheticPhotometry.MagnitudeFromNjy(o.Flux[row]);
+        if (double.IsNaN(o.PeakMag[image]) || mag < o.PeakMag[image])
+        {
+            o.PeakMag[image] = mag;
+            o.PeakBand[image] = band;
+        }
+    }
+
+    static bool IsAlone(ReadOnlySpan<int> group, int n, int i)
+    {
+        for (int j = 0; j < n; j++) if (j != i && group[j] == group[i]) return false;
+        return true;
+    }
+
+    // Single-linkage groups of images closer than `limit` [arcsec]; each labelled by its lowest image index.
+    static void Groups(ReadOnlySpan<double> x, ReadOnlySpan<double> y, int n, double limit, Span<int> group)
+    {
+        for (int i = 0; i < n; i++) group[i] = i;
+        double l2 = limit * limit;
+        bool changed = true;
+        while (changed)
+        {
+            changed = false;
+            for (int i = 0; i < n; i++)
+                for (int j = i + 1; j < n; j++)
+                {
+                    if (group[i] == group[j]) continue;
+                    double dx = x[i] - x[j], dy = y[i] - y[j];
+                    if (dx * dx + dy * dy >= l2) continue;
+                    int keep = Math.Min(group[i], group[j]), drop = Math.Max(group[i], group[j]);
+                    for (int k = 0; k < n; k++) if (group[k] == drop) group[k] = keep;
+                    changed = true;
+                }
+        }
+    }
+
+    // Detection: rows that a survey would measure (resolved images and unresolved blends), sliding window.
+    void Decide(SystemObservations o, bool candleOk)
+    {
+        var epochs = new List<(double Mjd, int Band)>();
+        for (int r = 0; r < o.Count; r++)
+        {
+            bool measured = o.ImageIndex[r] < 0 || IsResolvedRow(o, r);
+            if (measured && o.Flux[r] / o.FluxErr[r] >= detection.MinSnr) epochs.Add((o.Mjd[r], o.Band[r]));
+        }
+        epochs.Sort((a, b) => a.Mjd.CompareTo(b.Mjd));
+        o.Detections = epochs.Count;
+        o.FirstDetectionMjd = epochs.Count > 0 ? epochs[0].Mjd : double.NaN;
+        bool ok = false;
+        Span<bool> seen = stackalloc bool[64];
+        for (int a = 0, b = 0; a < epochs.Count && !ok; a++)
+        {
+            while (b < epochs.Count && epochs[b].Mjd - epochs[a].Mjd <= detection.WindowDays) b++;
+            if (b - a < detection.MinDetections) continue;
+            seen.Clear();
+            int bands = 0;
+            for (int k = a; k < b; k++)
+                if (!seen[epochs[k].Band % 64]) { seen[epochs[k].Band % 64] = true; bands++; }
+            ok = bands >= detection.MinBands;
+        }
+        o.Detected = ok && candleOk;
+    }
+
+    static bool IsResolvedRow(SystemObservations o, int r) => o.BlendGroup[r] == o.ImageIndex[r] && !HasBlendRow(o, r);
+
+    // A resolved image's group has no −1 row at the same visit; blended images share the group of a −1 row.
+    static bool HasBlendRow(SystemObservations o, int r)
+    {
+        for (int k = r + 1; k < o.Count && o.Mjd[k] == o.Mjd[r] && o.Band[k] == o.Band[r]; k++)
+            if (o.ImageIndex[k] < 0 && o.BlendGroup[k] == o.BlendGroup[r]) return true;
+        return false;
+    }
+
+    // Peak flux per band of an unlensed SN Ia (mean − n σ peak magnitude) at the lens redshift.
+    void CandlePeaks(double zLens, double dLensCm, Span<double> peaks)
+    {
+        int nb = peaks.Length;
+        Span<double> scale = stackalloc double[nb];
+        Span<double> noDust = stackalloc double[nb];
+        bank.EventScales(Populations.TransientType.Ia, zLens, dLensCm, candleMean - detection.CandleSigmas * candleSigma, noDust, scale);
+        for (int b = 0; b < nb; b++)
+        {
+            double best = 0;
+            for (double t = 0.5; t < bank.Models[Populations.TransientType.Ia].MaxPhaseDays; t += 0.5)
+                best = Math.Max(best, bank.Q(Populations.TransientType.Ia, b, zLens, t));
+            peaks[b] = best * scale[b];
+        }
+    }
+}
