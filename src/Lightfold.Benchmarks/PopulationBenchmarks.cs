@@ -10,7 +10,7 @@ public static class PopulationBenchmarks
     public static QuickBench.Result Quick()
     {
         const long n = 200_000;
-        var scenario = ScenarioLoader.Load([], [$"run.count={n}"], []);
+        var scenario = ScenarioLoader.Load([], [$"run.count={n}", "light_curves.enabled=false"], []);
         _ = new SystemSampler(scenario);   // warm the cross-section table and JIT
         double Run(int threads)
         {

@@ -17,6 +17,7 @@ public static class QuickBench
         ("distances", CosmologyBenchmarks.Quick),
         ("lens-solver", ImageFinderBenchmarks.Quick),
         ("simulate", PopulationBenchmarks.Quick),
+        ("observations", ObservationBenchmarks.Quick),
     ];
 
     /// <summary>Runs the named comparisons (all when none named) and prints one line each.</summary>

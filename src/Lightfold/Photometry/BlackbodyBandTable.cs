@@ -18,16 +18,38 @@ public sealed class BlackbodyBandTable
         Band = band;
         nz = (int)Math.Ceiling(zMax / ZStep) + 2;
         lnG = new double[nz * NT];
-        for (int iz = 0; iz < nz; iz++)
+        // Same trapezoid rule as SyntheticPhotometry.FluxNu, with everything that does not depend on T hoisted:
+        // per redshift, the weight w_k = T_b λ Δλ × S(λ_rest) × 2hc²/λ_rest⁵ and the exponent scale hc/(λ_rest k).
+        var l = band.WavelengthAngstrom;
+        var tb = band.Throughput;
+        int n = l.Length;
+        double den = 0;
+        for (int k = 1; k < n; k++) den += 0.5 * (l[k] - l[k - 1]) * (tb[k] / l[k] + tb[k - 1] / l[k - 1]);
+        den *= Units.SpeedOfLightAngstromPerS;
+        const double hc = Units.PlanckErgS * Units.SpeedOfLightCms;
+        Parallel.For(0, nz, iz =>
         {
             double z = iz * ZStep;
+            var weight = new double[n];
+            var scale = new double[n];
+            for (int k = 0; k < n; k++)
+            {
+                double trapezoid = 0.5 * ((k > 0 ? l[k] - l[k - 1] : 0) + (k < n - 1 ? l[k + 1] - l[k] : 0));
+                double restCm = l[k] / (1 + z) * 1e-8;
+                weight[k] = tb[k] * l[k] * trapezoid * uvSuppression(l[k] / (1 + z)) * 2 * hc * Units.SpeedOfLightCms / Math.Pow(restCm, 5) * 1e-8;
+                scale[k] = hc / (restCm * Units.BoltzmannErgPerK);
+            }
             for (int it = 0; it < NT; it++)
             {
-                double t = Math.Exp(LnTMin + it * LnTStep);
-                double g = SyntheticPhotometry.FluxNu(band, l => SyntheticPhotometry.PlanckLambda(t, l / (1 + z)) * uvSuppression(l / (1 + z)));
-                lnG[iz * NT + it] = Math.Log(Math.Max(g, 1e-300));
+                double inverseT = 1.0 / Math.Exp(LnTMin + it * LnTStep), sum = 0;
+                for (int k = 0; k < n; k++)
+                {
+                    double x = scale[k] * inverseT;
+                    if (x < 700) sum += weight[k] / (Math.Exp(x) - 1);
+                }
+                lnG[iz * NT + it] = Math.Log(Math.Max(sum / den, 1e-300));
             }
-        }
+        });
     }
 
     /// <summary>The band.</summary>

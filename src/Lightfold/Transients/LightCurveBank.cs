@@ -112,9 +112,21 @@ public sealed class LightCurveBank
     static double PeakRestFrameB(ITransientModel model)
     {
         const double tenPcCm = 10 * Units.CmPerParsec;
-        double best = 0;
-        for (double t = 0.1; t <= model.MaxPhaseDays; t += 0.1)
-            best = Math.Max(best, DirectQ(model, BuiltInBands.RestFrameB, 0, t));
+        // Coarse scan every 0.5 d, then golden-section refinement around the best node (light curves are unimodal there).
+        double best = 0, tBest = 0;
+        for (double t = 0.5; t <= model.MaxPhaseDays; t += 0.5)
+        {
+            double q = DirectQ(model, BuiltInBands.RestFrameB, 0, t);
+            if (q > best) { best = q; tBest = t; }
+        }
+        double a = Math.Max(0.01, tBest - 0.5), b = Math.Min(model.MaxPhaseDays, tBest + 0.5);
+        const double ratio = 0.6180339887498949;
+        for (int i = 0; i < 40; i++)
+        {
+            double c = b - ratio * (b - a), d = a + ratio * (b - a);
+            if (DirectQ(model, BuiltInBands.RestFrameB, 0, c) > DirectQ(model, BuiltInBands.RestFrameB, 0, d)) b = d; else a = c;
+        }
+        best = Math.Max(best, DirectQ(model, BuiltInBands.RestFrameB, 0, 0.5 * (a + b)));
         if (!(best > 0)) throw new InputException($"transient model ({model.Description}) has no rest-frame B flux: cannot normalise its peak magnitude");
         return SyntheticPhotometry.AbMagnitude(best / (4 * Math.PI * tenPcCm * tenPcCm));
     }
