@@ -43,10 +43,10 @@ public sealed record RunTarget(string OutputDirectory, int Shard = 0, int Shards
 public static class SimulationRunner
 {
     /// <summary>Rows per observations row group.</summary>
-    const int ObservationRowGroup = 1 << 20;
+    const int ObservationRowGroup = 1 << 18;
 
     /// <summary>Systems per compute batch when light curves are on (their rows are held until written).</summary>
-    const int LightCurveBatch = 2048;
+    const int LightCurveBatch = 1024;
 
     /// <summary>Runs one shard.</summary>
     public static async Task<RunSummary> RunAsync(Scenario scenario, RunTarget target, IProgressSink? progress, CancellationToken ct)
