@@ -18,6 +18,7 @@ public static class Cli
         root.Subcommands.Add(SimulateCommand.Create(context));
         root.Subcommands.Add(ForecastCommand.Create(context));
         root.Subcommands.Add(LightCurveCommand.Create(context));
+        root.Subcommands.Add(MicromapCommand.Create(context));
 
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)
@@ -33,6 +34,11 @@ public static class Cli
         catch (InputException e)
         {
             stderr.WriteLine($"lightfold: {e.Message}");
+            return ExitCodes.BadInput;
+        }
+        catch (AggregateException e) when (e.Flatten().InnerExceptions is [InputException inner, ..])
+        {
+            stderr.WriteLine($"lightfold: {inner.Message}");
             return ExitCodes.BadInput;
         }
         catch (OperationCanceledException)

@@ -74,6 +74,7 @@ public static class CatalogSchema
         new ValueColumn<double>(Columns.DelayDays, capacity),
         new ValueColumn<double>(Columns.Kappa, capacity),
         new ValueColumn<double>(Columns.Gamma, capacity),
+        new ValueColumn<double>(Columns.KappaStar, capacity),
         .. lightCurves ? (ColumnBuffer[])[new ValueColumn<double>(Columns.PeakMag, capacity), new TextColumn(Columns.PeakBand, capacity)] : [],
     ]);
 

@@ -53,6 +53,9 @@ public sealed record Scenario
     /// <summary>Light curves, photometry, survey cadence, noise and detection (the `observations` table).</summary>
     public ObservingSettings Observing { get; init; } = new();
 
+    /// <summary>Microlensing by stars.</summary>
+    public Microlensing.MicrolensingSettings Microlensing { get; init; } = new();
+
     /// <summary>The resolved configuration as indented JSON (all layers applied, typed).</summary>
     public string ResolvedJson { get; init; } = "{}";
 }

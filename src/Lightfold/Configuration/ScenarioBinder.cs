@@ -37,6 +37,50 @@ public static class ScenarioBinder
             Deflectors = deflectors,
             Sources = sources,
             Observing = observing,
+            Microlensing = BindMicrolensing(r.Section("microlensing")),
+        };
+    }
+
+    static Microlensing.MicrolensingSettings BindMicrolensing(ConfigReader m)
+    {
+        bool enabled = m.Bool("enabled");
+        var stellar = new Microlensing.StellarConvergence
+        {
+            Model = m.Choice("stellar_model", "de_vaucouleurs", "constant"),
+            ConstantFraction = m.Double("constant_fraction", 0, 1),
+            FractionAtEinsteinRadius = m.Double("fraction_at_einstein_radius", 0, 1),
+            EffectiveRadiusKpcAt200Kms = m.Double("effective_radius_kpc_at_200kms", 0.01, 100, "kpc"),
+            EffectiveRadiusSlope = m.Double("effective_radius_slope", -5, 5),
+        };
+        var imf = m.Section("imf");
+        var massFunction = new Microlensing.InitialMassFunction
+        {
+            Kind = imf.Choice("kind", "salpeter", "kroupa"),
+            MinMassSolar = imf.Double("mass_min_msun", 0.01, 100, "M☉"),
+            MaxMassSolar = imf.Double("mass_max_msun", 0.01, 100, "M☉"),
+        };
+        if (massFunction.MaxMassSolar <= massFunction.MinMassSolar)
+            throw new InputException($"config key 'microlensing.imf.mass_max_msun' = {massFunction.MaxMassSolar} must exceed 'microlensing.imf.mass_min_msun' = {massFunction.MinMassSolar}");
+        var map = m.Section("map");
+        var grid = m.Section("grid");
+        var bank = new Microlensing.MapBankSettings
+        {
+            SizeEinsteinRadii = map.Double("size_einstein_radii", 0.1, 1000, "R_E"),
+            Pixels = map.Int("pixels", 16, 10_000),
+            RaysPerPixel = map.Double("rays_per_pixel", 1, 100_000),
+            MarginEinsteinRadii = map.Double("margin_einstein_radii", 0, 100, "R_E"),
+            KappaStep = grid.Double("kappa_step", 0.005, 1),
+            GammaStep = grid.Double("gamma_step", 0.005, 1),
+            StarFractions = grid.DoubleList("star_fractions", 1e-3, 1, 1, 50),
+            Imf = massFunction,
+        };
+        return new Microlensing.MicrolensingSettings
+        {
+            Enabled = enabled, Stellar = stellar, Bank = bank,
+            LimbDarkening = m.Double("limb_darkening", 0, 1),
+            AchromaticDays = m.Double("achromatic_days", 0, 1000, "days"),
+            ChromaticIndex = m.Double("chromatic_index", 0, 5),
+            ReferenceWavelengthAngstrom = m.Double("reference_wavelength_angstrom", 100, 100_000, "Å"),
         };
     }
 

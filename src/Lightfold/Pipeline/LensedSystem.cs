@@ -41,6 +41,10 @@ public struct LensedSystem
     public ImageBuffer Images;
     /// <summary>Delay of each image after the first [days].</summary>
     public DelayBuffer DelaysDays;
+    /// <summary>Convergence in stars at each image.</summary>
+    public DelayBuffer KappaStars;
+    /// <summary>Einstein radius of a 1 M☉ star on the source plane [cm].</summary>
+    public double MicroEinsteinRadiusCm;
 
     /// <summary>Fixed-size inline storage for the images (no allocation per system).</summary>
     [System.Runtime.CompilerServices.InlineArray(MaxImages)]

@@ -1,3 +1,4 @@
+using Lightfold.Microlensing;
 using Lightfold.Photometry;
 using Lightfold.Randomness;
 using Lightfold.Survey;
@@ -23,11 +24,23 @@ public sealed class ObservationSimulator
     readonly double blendFraction, preExplosionDays, hostEbvMean, mwEbv, rV;
     readonly double[] pivot;
     readonly double candleMean, candleSigma;
+    readonly MicrolensingSettings? micro;
+    readonly MapBank? maps;
+    readonly Dictionary<Populations.TransientType, double> maxRadiusCm = [];
 
-    /// <summary>Prepares the stage.</summary>
+    /// <summary>Prepares the stage; <paramref name="maps"/> null means no microlensing (factor 1).</summary>
     public ObservationSimulator(ulong seed, LightCurveBank bank, ISchedule schedule, NoiseModel noise, DetectionRule detection,
-        double blendFractionOfSeeing, double preExplosionDays, double hostEbvMean, double mwEbv, double rV, double candleMeanB, double candleSigmaB)
+        double blendFractionOfSeeing, double preExplosionDays, double hostEbvMean, double mwEbv, double rV, double candleMeanB, double candleSigmaB,
+        MicrolensingSettings? micro = null, MapBank? maps = null)
     {
+        this.micro = micro;
+        this.maps = micro is { Enabled: true } ? maps : null;
+        foreach (var (type, model) in bank.Models)
+        {
+            double r = 0;
+            for (double t = 0; t <= model.MaxPhaseDays; t += 0.5) r = Math.Max(r, model.PhotosphereRadiusCm(t));
+            maxRadiusCm[type] = r;
+        }
         this.seed = seed;
         this.bank = bank;
         this.schedule = schedule;
@@ -71,6 +84,27 @@ public sealed class ObservationSimulator
         Span<double> sx = stackalloc double[LensedSystem.MaxImages];
         Span<double> sy = stackalloc double[LensedSystem.MaxImages];
         for (int i = 0; i < ni; i++) { sx[i] = s.Images[i].XArcsec; sy[i] = s.Images[i].YArcsec; }
+        // Microlensing: each image sits at a random (keyed) place on the map of its (κ, γ, κ_*) node.
+        var sources = maps is null ? null : new FiniteSource?[ni];
+        double pixelCm = 0;
+        Span<double> restWavelength = stackalloc double[nb];
+        for (int b = 0; b < nb; b++) restWavelength[b] = pivot[b] / (1 + s.ZSource);
+        if (sources is not null)
+        {
+            double chroma = 1;
+            for (int b = 0; b < nb; b++) chroma = Math.Max(chroma, micro!.ChromaticFactor(restWavelength[b], 1e9));
+            for (int i = 0; i < ni; i++)
+            {
+                if (!MapBank.Covers(s.Images[i].Kappa, s.Images[i].Gamma, s.KappaStars[i])) continue;
+                var map = maps!.Get(s.Images[i].Kappa, s.Images[i].Gamma, s.KappaStars[i]);
+                pixelCm = s.MicroEinsteinRadiusCm * map.PixelEinsteinRadii;
+                double rMax = Math.Min(maxRadiusCm[s.Type] * chroma / pixelCm + 2, map.Pixels / 3.0);
+                var place = KeyedRandom.For(seed, s.SystemId, Stage.Microlensing, (ulong)i);
+                double cx = rMax + place.NextDouble() * (map.Pixels - 2 * rMax), cy = rMax + place.NextDouble() * (map.Pixels - 2 * rMax);
+                sources[i] = new FiniteSource(map, cx, cy, rMax, micro!.LimbDarkening);
+            }
+        }
+        Span<double> microFactor = stackalloc double[LensedSystem.MaxImages];
         Span<double> candle = stackalloc double[nb];
         bool useCandle = detection.RequireBrighterThanCandle && s.Type == Populations.TransientType.Ia;
         if (useCandle) CandlePeaks(s.ZLens, lensLuminosityDistanceCm, candle);
@@ -82,21 +116,33 @@ public sealed class ObservationSimulator
             for (int i = 0; i < ni; i++)
             {
                 double phase = (v.Mjd - s.T0Mjd - s.DelaysDays[i]) / (1 + s.ZSource);
-                truth[i] = Math.Abs(s.Images[i].Magnification) * scale[b] * bank.Q(s.Type, b, s.ZSource, phase);
+                microFactor[i] = 1.0;
+                if (sources?[i] is not null && phase > 0)
+                {
+                    var model = bank.Models[s.Type];
+                    double radius = model.PhotosphereRadiusCm(Math.Min(phase, model.MaxPhaseDays)) * micro!.ChromaticFactor(restWavelength[b], phase);
+                    microFactor[i] = sources[i]!.Factor(radius / pixelCm);
+                }
+                truth[i] = Math.Abs(s.Images[i].Magnification) * microFactor[i] * scale[b] * bank.Q(s.Type, b, s.ZSource, phase);
             }
             Groups(sx, sy, ni, blendFraction * v.SeeingFwhmArcsec, group);
             for (int i = 0; i < ni; i++)
             {
-                int r = AddRow(o, v, i, group[i], truth[i], 1.0, ref rng);
+                int r = AddRow(o, v, i, group[i], truth[i], microFactor[i], ref rng);
                 bool resolved = IsAlone(group, ni, i);
                 if (resolved) Track(o, r, i, b, v.Mjd);
             }
             for (int g = 0; g < ni; g++)
             {
                 if (group[g] != g || IsAlone(group, ni, g)) continue;
-                double sum = 0;
-                for (int i = 0; i < ni; i++) if (group[i] == g) sum += truth[i];
-                int r = AddRow(o, v, -1, g, sum, 1.0, ref rng);
+                double sum = 0, unmicrolensed = 0;
+                for (int i = 0; i < ni; i++)
+                    if (group[i] == g)
+                    {
+                        sum += truth[i];
+                        unmicrolensed += truth[i] / microFactor[i];
+                    }
+                int r = AddRow(o, v, -1, g, sum, unmicrolensed > 0 ? sum / unmicrolensed : 1.0, ref rng);
                 Track(o, r, -1, b, v.Mjd);
             }
             if (useCandle && !candlePassed)

@@ -18,8 +18,9 @@ public sealed class ObservationStage
         Resources = resources;
         Bank = new LightCurveBank(resources.Models, resources.Bands, scenario.Sources.ZMax);
         var ia = scenario.Sources.PeakMagnitudes[Populations.TransientType.Ia];
+        Maps = scenario.Microlensing.Enabled ? new Microlensing.MapBank(scenario.Microlensing.Bank, scenario.Seed, FitsMapCache.Default()) : null;
         simulator = new ObservationSimulator(scenario.Seed, Bank, resources.Schedule, o.Noise, o.Detection, o.BlendFractionOfSeeing,
-            o.PreExplosionDays, o.HostEbvMean, o.MilkyWayEbv, o.RV, ia.Mean, ia.Sigma);
+            o.PreExplosionDays, o.HostEbvMean, o.MilkyWayEbv, o.RV, ia.Mean, ia.Sigma, scenario.Microlensing, Maps);
         distances = new FlrwCosmology(scenario.Cosmology).Table;
         BandNames = resources.Bands.Select(b => b.Name).ToArray();
         if (o.Detection.RequireBrighterThanCandle && !resources.Models.ContainsKey(Populations.TransientType.Ia))
@@ -34,6 +35,9 @@ public sealed class ObservationStage
 
     /// <summary>Band light-curve tables.</summary>
     public LightCurveBank Bank { get; }
+
+    /// <summary>The microlensing map bank (null when microlensing is off).</summary>
+    public Microlensing.MapBank? Maps { get; }
 
     /// <summary>Band names in index order.</summary>
     public string[] BandNames { get; }

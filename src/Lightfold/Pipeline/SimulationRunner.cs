@@ -182,7 +182,7 @@ public static class SimulationRunner
         long[] iid = images.L(Columns.SystemId);
         int[] index = images.I(Columns.ImageIndex);
         double[] x = images.D(Columns.XArcsec), y = images.D(Columns.YArcsec), mu = images.D(Columns.Magnification),
-            delay = images.D(Columns.DelayDays), kappa = images.D(Columns.Kappa), gamma = images.D(Columns.Gamma);
+            delay = images.D(Columns.DelayDays), kappa = images.D(Columns.Kappa), gamma = images.D(Columns.Gamma), kappaStar = images.D(Columns.KappaStar);
         int row = 0;
         for (int i = 0; i < drawn.Length; i++)
         {
@@ -200,7 +200,7 @@ public static class SimulationRunner
                 for (int b = 0; b < a; b++)
                     sep = Math.Max(sep, Math.Sqrt(Math.Pow(im.XArcsec - s.Images[b].XArcsec, 2) + Math.Pow(im.YArcsec - s.Images[b].YArcsec, 2)));
                 iid[row] = s.SystemId; index[row] = a; x[row] = im.XArcsec; y[row] = im.YArcsec; mu[row] = im.Magnification;
-                delay[row] = s.DelaysDays[a]; kappa[row] = im.Kappa; gamma[row] = im.Gamma;
+                delay[row] = s.DelaysDays[a]; kappa[row] = im.Kappa; gamma[row] = im.Gamma; kappaStar[row] = s.KappaStars[a];
                 row++;
             }
             maxDelay[i] = s.ImageCount > 0 ? s.DelaysDays[s.ImageCount - 1] : 0;

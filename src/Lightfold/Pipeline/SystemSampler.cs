@@ -77,6 +77,20 @@ public sealed class SystemSampler
         double daysPerArcsec2 = TimeDelays.DaysPerArcsec2(s.TimeDelayDistanceMpc);
         for (int i = 0; i < s.ImageCount; i++) s.DelaysDays[i] = images[i].RelativeFermatArcsec2 * daysPerArcsec2;
 
+        // Stellar convergence at each image (the lens's elliptical radius, its effective radius from σ_v).
+        double dLens = distances.AngularDiameterDistanceMpc(s.ZLens);
+        var stellar = scenario.Microlensing.Stellar;
+        double re = stellar.EffectiveRadiusArcsec(s.SigmaVKms, dLens);
+        double phiL = Units.DegToRad(90 - s.Lens.PositionAngleDeg);
+        for (int i = 0; i < s.ImageCount; i++)
+        {
+            double x = images[i].XArcsec, y = images[i].YArcsec;
+            double xl = x * Math.Cos(phiL) + y * Math.Sin(phiL), yl = -x * Math.Sin(phiL) + y * Math.Cos(phiL);
+            double elliptical = Math.Sqrt(q * xl * xl + yl * yl / q);
+            s.KappaStars[i] = stellar.KappaStar(images[i].Kappa, elliptical, thetaE, re);
+        }
+        s.MicroEinsteinRadiusCm = Microlensing.MicrolensingSettings.EinsteinRadiusCm(dLens, dsrc, dds);
+
         var transient = KeyedRandom.For(scenario.Seed, systemId, Stage.Transient);
         var survey = scenario.Survey;
         s.T0Mjd = survey.StartMjd - survey.LeadInDays + (survey.EndMjd - survey.StartMjd + survey.LeadInDays) * transient.NextDouble();
