@@ -18,6 +18,7 @@ public static class QuickBench
         ("lens-solver", ImageFinderBenchmarks.Quick),
         ("simulate", PopulationBenchmarks.Quick),
         ("observations", ObservationBenchmarks.Quick),
+        ("micromap", MicrolensingBenchmarks.Quick),
     ];
 
     /// <summary>Runs the named comparisons (all when none named) and prints one line each.</summary>

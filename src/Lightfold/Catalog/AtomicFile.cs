@@ -3,8 +3,10 @@ namespace Lightfold.Catalog;
 /// <summary>Writes files under a temporary name and renames them when complete, so no finished-looking partial file is ever left.</summary>
 public static class AtomicFile
 {
-    /// <summary>The temporary name used while <paramref name="path"/> is being written.</summary>
-    public static string TempName(string path) => path + $".partial-{Environment.ProcessId}";
+    static long counter;
+
+    /// <summary>A fresh temporary name for writing <paramref name="path"/> (unique per process and call).</summary>
+    public static string TempName(string path) => path + $".partial-{Environment.ProcessId}-{Interlocked.Increment(ref counter)}";
 
     /// <summary>Writes <paramref name="text"/> to <paramref name="path"/> atomically.</summary>
     /// <exception cref="InputException">The folder does not exist or cannot be written.</exception>

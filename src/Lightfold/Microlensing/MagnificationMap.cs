@@ -52,6 +52,9 @@ public sealed class MagnificationMap
     public int Stars { get; }
     /// <summary>Rays shot.</summary>
     public long Rays { get; }
+
+    /// <summary>Ray–star pairs summed directly (the near field), for cost accounting.</summary>
+    public long NearInteractions { get; init; }
     /// <summary>Pixels per side.</summary>
     public int Pixels => Spec.Pixels;
     /// <summary>Pixel size [R_E].</summary>

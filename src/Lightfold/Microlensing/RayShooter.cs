@@ -58,6 +58,7 @@ public static class RayShooter
         var total = new long[n * n];
         var options = new ParallelOptions { MaxDegreeOfParallelism = threads > 0 ? threads : Environment.ProcessorCount };
         object gate = new();
+        long near = 0;
         Parallel.For(0, px * py, options, () => new Worker(n), (patch, _, w) =>
         {
             int ix0 = patch % px * PatchRays, iy0 = patch / px * PatchRays;
@@ -67,6 +68,7 @@ public static class RayShooter
             double hpatch = 0.5 * PatchRays * d;
             tree.Expand(cx, cy, hpatch, w.LocalRe, w.LocalIm, w.Near);
             int nearCount = w.Near.Count;
+            w.NearInteractions += (long)nearCount * (ix1 - ix0) * (iy1 - iy0);
             if (w.NearX.Length < nearCount) { w.NearX = new double[nearCount * 2]; w.NearY = new double[nearCount * 2]; w.NearM = new double[nearCount * 2]; }
             for (int k = 0; k < nearCount; k++) { int s = w.Near[k]; w.NearX[k] = stars.X[s]; w.NearY[k] = stars.Y[s]; w.NearM[k] = stars.Mass[s]; }
             // Four rays at a time along x (Vector256<double>); the far field by Horner's rule in u = x − c.
@@ -113,12 +115,15 @@ public static class RayShooter
         }, w =>
         {
             lock (gate)
+            {
                 for (int i = 0; i < total.Length; i++) total[i] += w.Counts[i];
+                near += w.NearInteractions;
+            }
         });
         double perRay = d * d / (pixel * pixel);   // μ of a pixel = (rays × image area per ray) / pixel area
         var map = new float[n * n];
         for (int i = 0; i < map.Length; i++) map[i] = (float)(total[i] * perRay);
-        return new MagnificationMap(spec, map, stars.Count, rays);
+        return new MagnificationMap(spec, map, stars.Count, rays) { NearInteractions = near };
     }
 
     sealed class Worker(int n)
@@ -128,5 +133,6 @@ public static class RayShooter
         public readonly double[] LocalIm = new double[StarTree.Order + 1];
         public readonly List<int> Near = [];
         public double[] NearX = new double[64], NearY = new double[64], NearM = new double[64];
+        public long NearInteractions;
     }
 }

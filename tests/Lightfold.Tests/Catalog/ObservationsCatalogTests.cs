@@ -44,7 +44,7 @@ public sealed class ObservationsCatalogTests : IClassFixture<ObservationsCatalog
     }
 
     // Each image's true fluxes are the unlensed light curve shifted by the catalog's delay and scaled by |μ|:
-    // F_i(t) = |μ_i| F(t − t₀ − Δt_i), with F recomputed here by direct synthetic photometry (not the tables), the
+    // F_i(t) = |μ_i| μ_micro F(t − t₀ − Δt_i) (μ_micro as written in the row), with F recomputed here by direct synthetic photometry (not the tables), the
     // peak normalisation and the luminosity distance from the cosmology. 400 rows, 0.6% (table interpolation).
     [Fact]
     public void True_fluxes_are_the_source_curve_shifted_by_delays_and_scaled_by_magnifications()
@@ -59,7 +59,7 @@ public sealed class ObservationsCatalogTests : IClassFixture<ObservationsCatalog
             return SyntheticPhotometry.AbMagnitude(best / (4 * Math.PI * Math.Pow(10 * Units.CmPerParsec, 2)));
         });
         using var db = new DuckDb();
-        var rows = db.Rows($@"SELECT o.mjd, o.band, o.true_flux_njy, i.magnification, i.delay_days, s.t0_mjd, s.z_source, s.transient_type, s.peak_absolute_b_mag
+        var rows = db.Rows($@"SELECT o.mjd, o.band, o.true_flux_njy, i.magnification, i.delay_days, s.t0_mjd, s.z_source, s.transient_type, s.peak_absolute_b_mag, o.micro_magnification
             FROM {DuckDb.Table(dir, "observations")} o JOIN {DuckDb.Table(dir, "images")} i USING (system_id, image_index)
             JOIN {DuckDb.Table(dir, "systems")} s USING (system_id)
             WHERE o.true_flux_njy > 0 ORDER BY hash(o.system_id, o.mjd, o.image_index) LIMIT 400");
@@ -72,7 +72,7 @@ public sealed class ObservationsCatalogTests : IClassFixture<ObservationsCatalog
             double dl = cosmology.LuminosityDistanceMpc(z) * Units.CmPerMpc;
             double phase = (mjd - t0 - delay) / (1 + z);
             double scale = Math.Pow(10, -0.4 * (peak + LightCurveBank.BVegaToAb - peakModel[type])) / (4 * Math.PI * dl * dl * (1 + z)) / 1e-32;
-            double expected = Math.Abs(mu) * scale * LightCurveBank.DirectQ(resources.Models[type], band, z, phase);
+            double expected = Math.Abs(mu) * (double)r[9]! * scale * LightCurveBank.DirectQ(resources.Models[type], band, z, phase);
             if (expected < 1e-3 * truth) continue;   // within a table cell of the explosion or the model's end
             AssertRelative.Equal(expected, truth, 6e-3, $"{type} z={z:F3} phase {phase:F2} d band {band.Name}");
         }
@@ -117,6 +117,24 @@ public sealed class ObservationsCatalogTests : IClassFixture<ObservationsCatalog
             if (expected) detected++;
         }
         Assert.True(detected > 0, "some systems are detected");
+    }
+
+    // Microlensing in the default scenario: per-visit factors vary (not constant) and stay physical: median near 1,
+    // the 5–95% range between 0.2 and 5, none negative; κ_* is positive and never exceeds κ.
+    [Fact]
+    public void Micro_magnifications_vary_within_physical_bounds()
+    {
+        using var db = new DuckDb();
+        string obs = DuckDb.Table(dir, "observations");
+        var q = db.Rows($"SELECT quantile_cont(micro_magnification, [0.05, 0.5, 0.95]), min(micro_magnification), stddev(ln(micro_magnification)) FROM {obs} WHERE image_index >= 0 AND true_flux_njy > 0")[0];
+        var quantiles = ((System.Collections.IEnumerable)q[0]!).Cast<object>().Select(Convert.ToDouble).ToArray();
+        Assert.InRange(quantiles[1], 0.5, 2.0);
+        Assert.InRange(quantiles[0], 0.2, 1.0);
+        Assert.InRange(quantiles[2], 1.0, 5.0);
+        Assert.True((double)q[1]! > 0);
+        Assert.True((double)q[2]! > 0.02, $"σ(ln μ_micro) = {q[2]}");
+        Assert.Equal(0L, db.Scalar<long>($"SELECT count(*) FROM {DuckDb.Table(dir, "images")} WHERE kappa_star < 0 OR kappa_star > kappa + 1e-12"));
+        Assert.True(db.Scalar<double>($"SELECT avg(kappa_star / kappa) FROM {DuckDb.Table(dir, "images")}") > 0.05);
     }
 
     [Fact]

@@ -129,4 +129,14 @@ public class SimulateCatalogTests
         Assert.Equal(2, code2);
         Assert.Contains("different inputs", err2);
     }
+
+    // The comparison switch: with microlensing off every factor is exactly 1 (κ_* is still reported).
+    [Fact]
+    public void Microlensing_switch_off_gives_unit_factors()
+    {
+        string dir = Simulate("--count", "60", "--set", "microlensing.enabled=false");
+        using var db = new DuckDb();
+        Assert.Equal(0L, db.Scalar<long>($"SELECT count(*) FROM {DuckDb.Table(dir, "observations")} WHERE micro_magnification <> 1"));
+        Assert.True(db.Scalar<double>($"SELECT max(kappa_star) FROM {DuckDb.Table(dir, "images")}") > 0);
+    }
 }
