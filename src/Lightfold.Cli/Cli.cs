@@ -8,7 +8,8 @@ namespace Lightfold.Cli;
 public static class Cli
 {
     /// <summary>Runs one command line with the given output writers and environment.</summary>
-    public static int Run(string[] args, TextWriter stdout, TextWriter stderr, IEnumerable<KeyValuePair<string, string?>> environment)
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr, IEnumerable<KeyValuePair<string, string?>> environment,
+        CancellationToken cancellation = default)
     {
         var context = new CliContext(stdout, stderr, environment.ToList());
         var root = new RootCommand("Lightfold: mock catalogs of strongly lensed transients (simulated, not observed).");
@@ -29,7 +30,9 @@ public static class Cli
         }
         try
         {
-            return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+            // SIGINT/SIGTERM arrive through `cancellation` (Program.cs); System.CommandLine's own handler is off.
+            var configuration = new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false, ProcessTerminationTimeout = null };
+            return parse.InvokeAsync(configuration, cancellation).GetAwaiter().GetResult();
         }
         catch (InputException e)
         {
@@ -41,7 +44,7 @@ public static class Cli
             stderr.WriteLine($"lightfold: {inner.Message}");
             return ExitCodes.BadInput;
         }
-        catch (OperationCanceledException)
+        catch (Exception e) when (e is OperationCanceledException || (e is AggregateException a && a.Flatten().InnerExceptions.All(x => x is OperationCanceledException)))
         {
             stderr.WriteLine("lightfold: cancelled; no finished output was left behind");
             return ExitCodes.Cancelled;

@@ -60,6 +60,13 @@ public static class DatasetManifest
         }
     }
 
+    /// <summary>Deletes leftover temporary files (from a killed run) in one shard folder.</summary>
+    public static void RemoveStalePartials(string shardFolder)
+    {
+        if (!Directory.Exists(shardFolder)) return;
+        foreach (string file in Directory.GetFiles(shardFolder, "*.partial-*")) AtomicFile.TryDelete(file);
+    }
+
     static string MarkerPath(string directory, int shard) => Path.Combine(directory, "manifest.d", $"shard-{shard:D4}.json");
 
     /// <summary>Whether shard <paramref name="shard"/> finished earlier.</summary>

@@ -64,6 +64,10 @@ public static class SimulationRunner
         if (DatasetManifest.IsComplete(dir, target.Shard))
             return new RunSummary(total, weight, 0, 0, 0, (0, 0), true, sampler.Yield);
 
+        // A run killed without warning (SIGKILL, power loss) leaves temporary files; they never became parts. Remove them.
+        foreach (string table in new[] { CatalogSchema.SystemsTable, CatalogSchema.ImagesTable, CatalogSchema.ObservationsTable })
+            DatasetManifest.RemoveStalePartials(Path.GetDirectoryName(CatalogSchema.PartPath(dir, table, target.Shard))!);
+
         long first = total * target.Shard / target.Shards, end = total * (target.Shard + 1) / target.Shards;
         int batchSize = (int)Math.Min(lightCurves ? Math.Min(scenario.Run.BatchSize, LightCurveBatch) : scenario.Run.BatchSize, Math.Max(1, end - first));
         var systems = CatalogSchema.Systems(batchSize, lightCurves);

@@ -39,7 +39,7 @@ public sealed class DuckDb : IDisposable
         => Rows($"SELECT decode(key), decode(value) FROM parquet_kv_metadata('{file}')").ToDictionary(r => (string)r[0]!, r => (string)r[1]!);
 
     /// <summary>The glob that reads every part of a table in a catalog folder.</summary>
-    public static string Table(string dir, string table) => $"read_parquet('{Path.Combine(dir, table)}/*/part.parquet')";
+    public static string Table(string dir, string table) => $"read_parquet('{Path.Combine(dir, table)}/*/part.parquet', hive_partitioning = false)";
 
     /// <inheritdoc/>
     public void Dispose() => connection.Dispose();
