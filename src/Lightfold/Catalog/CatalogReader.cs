@@ -65,7 +65,7 @@ public static class CatalogReader
         {
             ParquetReader reader;
             try { reader = await ParquetReader.CreateAsync(part); }
-            catch (Exception e) when (e is IOException or InvalidDataException) { throw new InputException($"'{part}' is not a readable Parquet file: {e.Message}"); }
+            catch (Exception e) when (e is not OutOfMemoryException) { throw new InputException($"'{part}' is not a readable Parquet file ({e.GetType().Name}: {InputException.Shown(e.Message, 120)})"); }
             await using var _ = reader;
             metadata ??= new Dictionary<string, string>(reader.CustomMetadata ?? new Dictionary<string, string>());
             var fields = reader.Schema.GetDataFields();

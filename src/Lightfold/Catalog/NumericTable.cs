@@ -66,7 +66,7 @@ public static class NumericTable
                 if (c >= cells.Length) throw new InputException($"table '{path}' line {li + 1}: column '{name}' is missing ({cells.Length} values)");
                 string cell = cells[c].Trim().Trim('"');
                 if (!double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
-                    throw new InputException($"table '{path}' line {li + 1}: column '{name}' = '{cell}' is not a finite number");
+                    throw new InputException($"table '{path}' line {li + 1}: column '{name}' = '{InputException.Shown(cell)}' is not a finite number");
                 lists[name].Add(v);
             }
         }
@@ -82,9 +82,10 @@ public static class NumericTable
             return ReadParquetAsync(path, required, optional, textColumns).GetAwaiter().GetResult();
         }
         catch (InputException) { throw; }
-        catch (Exception e) when (e is IOException or InvalidDataException or NotSupportedException or InvalidOperationException or ArgumentException or IndexOutOfRangeException)
+        catch (Exception e) when (e is not OutOfMemoryException)
         {
-            throw new InputException($"table '{path}' is not a readable Parquet file: {e.Message}");
+            // Parquet.Net reports malformed files with a variety of exception types (overflow, format, index…).
+            throw new InputException($"table '{path}' is not a readable Parquet file ({e.GetType().Name}: {InputException.Shown(e.Message, 120)})");
         }
     }
 

@@ -69,7 +69,7 @@ public sealed class ObservingResources
         for (int i = 0; i < mjd.Length; i++)
         {
             int b = bands.ToList().IndexOf(band[i]);
-            if (b < 0) throw new InputException($"visit table '{path}' row {i + 1}: band '{band[i]}' is not one of photometry.bands ({string.Join(", ", bands)})");
+            if (b < 0) throw new InputException($"visit table '{path}' row {i + 1}: band '{InputException.Shown(band[i])}' is not one of photometry.bands ({string.Join(", ", bands)})");
             if (depth[i] < 10 || depth[i] > 35) throw new InputException($"visit table '{path}' row {i + 1}: depth_5sigma_mag = {depth[i]} is outside [10, 35]");
             if (seeing[i] <= 0 || seeing[i] > 20) throw new InputException($"visit table '{path}' row {i + 1}: seeing_fwhm_arcsec = {seeing[i]} is outside (0, 20]");
             if (mjd[i] < 0 || mjd[i] > 100_000) throw new InputException($"visit table '{path}' row {i + 1}: mjd = {mjd[i]} is outside [0, 100000]");

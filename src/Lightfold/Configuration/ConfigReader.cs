@@ -47,7 +47,7 @@ public sealed class ConfigReader
     }
 
     InputException Error(string key, string? value, string expected)
-        => new($"config key '{Full(key)}' = '{value}': expected {expected}");
+        => new($"config key '{Full(key)}' = '{InputException.Shown(value)}': expected {expected}");
 
     /// <summary>A sub-section, read with the same bookkeeping.</summary>
     public ConfigReader Section(string name)
@@ -207,7 +207,7 @@ public sealed class ConfigReader
             string? nearest = known.Where(k => !k.StartsWith(ListMarker, StringComparison.Ordinal)).Select(k => k.Replace(':', '.'))
                 .Select(k => (k, d: Distance(dotted, k)))
                 .OrderBy(t => t.d).ThenBy(t => t.k, StringComparer.Ordinal).Select(t => t.k).FirstOrDefault();
-            throw new InputException($"unknown config key '{dotted}'" + (nearest is null ? "" : $" (did you mean '{nearest}'?)"));
+            throw new InputException($"unknown config key '{InputException.Shown(dotted, 120)}'" + (nearest is null ? "" : $" (did you mean '{nearest}'?)"));
         }
     }
 

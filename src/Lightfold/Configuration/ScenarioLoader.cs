@@ -64,7 +64,7 @@ public static class ScenarioLoader
             }
             catch (JsonException e)
             {
-                throw new InputException($"config file '{file}': invalid JSON at line {e.LineNumber + 1}: {FirstSentence(e.Message)}");
+                throw new InputException($"config file '{file}': invalid JSON at line {e.LineNumber + 1}: {InputException.Shown(FirstSentence(e.Message), 200)}");
             }
             catch (IOException e)
             {
@@ -84,7 +84,7 @@ public static class ScenarioLoader
         {
             int eq = set.IndexOf('=');
             if (eq <= 0 || set[..eq].Trim().Length == 0 || set[..eq].Contains(':'))
-                throw new InputException($"--set '{set}': expected section.key=value");
+                throw new InputException($"--set '{InputException.Shown(set)}': expected section.key=value");
             overrides[set[..eq].Trim().Replace('.', ':')] = set[(eq + 1)..].Trim();
         }
         builder.AddInMemoryCollection(overrides);
@@ -94,7 +94,7 @@ public static class ScenarioLoader
         }
         catch (Exception e) when (e is InvalidDataException or FormatException or JsonException)
         {
-            throw new InputException($"configuration cannot be read: {e.Message}");
+            throw new InputException($"configuration cannot be read: {InputException.Shown(e.Message, 200)}");
         }
     }
 
