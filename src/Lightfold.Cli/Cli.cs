@@ -20,6 +20,9 @@ public static class Cli
         root.Subcommands.Add(ForecastCommand.Create(context));
         root.Subcommands.Add(LightCurveCommand.Create(context));
         root.Subcommands.Add(MicromapCommand.Create(context));
+        root.Subcommands.Add(EstimateDelaysCommand.Create(context));
+        root.Subcommands.Add(ScoreDelaysCommand.Create(context));
+        root.Subcommands.Add(ReportCommand.Create(context));
 
         ParseResult parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -59,7 +59,8 @@ public static class LightCurveCommand
                         $"{obs.D(Columns.FluxNjy)[i].ToString("G6", Inv),12} {obs.D(Columns.FluxErrNjy)[i].ToString("G5", Inv),12} {obs.D(Columns.TrueFluxNjy)[i].ToString("G6", Inv),13} {obs.D(Columns.Snr)[i].ToString("F1", Inv),8}");
     }
 
-    static void Plot(string path, long systemId, TableColumns s, TableColumns obs)
+    /// <summary>Writes the light-curve PNG of one system (one panel per band).</summary>
+    public static void Plot(string path, long systemId, TableColumns s, TableColumns obs)
     {
         var bands = obs.S(Columns.Band).Distinct().ToList();
         if (bands.Count == 0) throw new InputException($"system {systemId} has no observations (outside the survey window or season)");

@@ -14,8 +14,8 @@ public static class SimulateCommand
     {
         var output = new Option<string>("--out", "-o") { Description = "catalog folder to write (created; a rerun resumes it)", Required = true };
         var seed = new Option<string?>("--seed") { Description = "master seed (same as --set run.seed=S)" };
-        var mode = new Option<string?>("--mode") { Description = "oversample (count weighted systems) or realization (one Poisson draw of the survey)" };
-        mode.AcceptOnlyFromAmong("oversample", "realization");
+        var mode = new Option<string?>("--mode") { Description = "oversample (count weighted systems), realization (one Poisson draw of the survey) or training (labelled lensed + unlensed objects with splits and features)" };
+        mode.AcceptOnlyFromAmong("oversample", "realization", "training");
         var count = new Option<string?>("--count") { Description = "systems in oversample mode (same as --set run.count=N)" };
         var shard = new Option<int>("--shard") { Description = "this process's part, 0-based (with --shards)", DefaultValueFactory = _ => 0 };
         var shards = new Option<int>("--shards") { Description = "number of parts the run is split into", DefaultValueFactory = _ => 1 };
@@ -58,7 +58,12 @@ public static class SimulateCommand
         foreach (var y in s.Yield.ByType.Values)
             o.WriteLine($"  {TransientTypes.Name(y.Type),-5} {(y.Lensed / years).ToString("F2", inv),12} {y.Lensed.ToString("F1", inv),12} {(y.Quads / years).ToString("F2", inv),10}");
         o.WriteLine($"  {"all",-5} {(s.Yield.TotalLensed / years).ToString("F2", inv),12} {s.Yield.TotalLensed.ToString("F1", inv),12}");
-        string mode = scenario.Run.Mode == Configuration.RunMode.Oversample ? $"oversample, weight {s.Weight.ToString("G6", inv)} per row" : "realization, weight 1";
+        string mode = scenario.Run.Mode switch
+        {
+            Configuration.RunMode.Oversample => $"oversample, weight {s.Weight.ToString("G6", inv)} per row",
+            Configuration.RunMode.Realization => "realization, weight 1",
+            _ => $"training set, {scenario.Run.Training.LensedFraction.ToString("P0", inv)} lensed, splits train/validation/test {scenario.Run.Training.TrainFraction.ToString(inv)}/{scenario.Run.Training.ValidationFraction.ToString(inv)}/rest; features table written",
+        };
         if (s.Skipped)
             o.WriteLine($"shard {target.Shard}/{target.Shards} was already complete in {target.OutputDirectory}: nothing written");
         else

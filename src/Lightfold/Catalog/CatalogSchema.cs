@@ -21,15 +21,18 @@ public static class CatalogSchema
     /// <summary>Name of the observations table.</summary>
     public const string ObservationsTable = "observations";
 
+    /// <summary>Name of the per-object, per-band features table (training sets).</summary>
+    public const string FeaturesTable = "features";
+
     /// <summary>Path of one table's part for one shard.</summary>
     public static string PartPath(string directory, string table, int shard)
         => Path.Combine(directory, table, $"shard={shard:D4}", "part.parquet");
 
     /// <summary>Every table variant, for schema listings: systems and images without and with light curves, observations.</summary>
-    public static IReadOnlyList<TableBuffer> AllVariants() => [Systems(1, false), Images(1, false), Systems(1, true), Images(1, true), Observations(1)];
+    public static IReadOnlyList<TableBuffer> AllVariants() => [Systems(1, false), Images(1, false), Systems(1, true), Images(1, true), Observations(1), Systems(1, true, training: true), Features(1)];
 
     /// <summary>An empty systems buffer; with light curves it adds the detection columns.</summary>
-    public static TableBuffer Systems(int capacity, bool lightCurves) => new(SystemsTable,
+    public static TableBuffer Systems(int capacity, bool lightCurves, bool training = false) => new(SystemsTable,
     [
         new ValueColumn<long>(Columns.SystemId, capacity),
         new ValueColumn<double>(Columns.Weight, capacity),
@@ -61,6 +64,21 @@ public static class CatalogSchema
                 new ValueColumn<double>(Columns.HostEbvMag, capacity),
             ]
             : [],
+        .. training ? (ColumnBuffer[])[new TextColumn(Columns.Label, capacity), new TextColumn(Columns.Split, capacity)] : [],
+    ]);
+
+    /// <summary>An empty features buffer (training sets): one row per object per band, from observed photometry only.</summary>
+    public static TableBuffer Features(int capacity) => new(FeaturesTable,
+    [
+        new ValueColumn<long>(Columns.SystemId, capacity),
+        new TextColumn(Columns.Band, capacity),
+        new ValueColumn<int>(Columns.NVisits, capacity),
+        new ValueColumn<int>(Columns.NDetections, capacity),
+        new ValueColumn<double>(Columns.PeakFluxNjy, capacity),
+        new ValueColumn<double>(Columns.PeakMjd, capacity),
+        new ValueColumn<double>(Columns.RiseDays, capacity),
+        new ValueColumn<double>(Columns.DeclineDays, capacity),
+        new ValueColumn<double>(Columns.ColourToNextBandMag, capacity),
     ]);
 
     /// <summary>An empty images buffer; with light curves it adds each image's peak observed magnitude.</summary>

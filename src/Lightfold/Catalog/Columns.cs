@@ -55,5 +55,20 @@ public static class Columns
     public const string IsDetection = "is_detection";
     public const string Depth5SigmaMag = "depth_5sigma_mag";
     public const string SeeingFwhmArcsec = "seeing_fwhm_arcsec";
+
+    // delay estimates
+    public const string ImageA = "image_a";
+    public const string ImageB = "image_b";
+    public const string DelayErrDays = "delay_err_days";
+
+    // training sets and features
+    public const string Label = "label";
+    public const string Split = "split";
+    public const string NVisits = "n_visits";
+    public const string PeakFluxNjy = "peak_flux_njy";
+    public const string PeakMjd = "peak_mjd";
+    public const string RiseDays = "rise_days";
+    public const string DeclineDays = "decline_days";
+    public const string ColourToNextBandMag = "colour_to_next_band_mag";
 #pragma warning restore CS1591
 }

@@ -13,7 +13,8 @@ public sealed record TableData(IReadOnlyDictionary<string, double[]?> Numbers, I
 
 /// <summary>Reads user tables (CSV or Parquet) of named numeric columns, with errors that name the file, row and column.</summary>
 /// <remarks>CSV: a header line of column names, comma-separated values, '#' starts a comment line; extra columns are
-/// ignored. Parquet: numeric columns (double, float, int, long) read by name. Every value must be a finite number.</remarks>
+/// ignored. Parquet: numeric columns (double, float, int, long) read by name. Every value must be a finite number, except
+/// in columns declared as allowing missing values (empty or NaN → NaN).</remarks>
 public static class NumericTable
 {
     /// <summary>Largest file accepted [bytes] (a guard against pointing at the wrong file).</summary>
@@ -21,20 +22,22 @@ public static class NumericTable
 
     /// <summary>The named columns of the table at <paramref name="path"/>; <paramref name="optional"/> columns may be absent (null).</summary>
     /// <exception cref="InputException">Missing file or column, unparsable or non-finite value, empty table.</exception>
-    public static TableData Read(string path, IReadOnlyList<string> required, IReadOnlyList<string>? optional = null, IReadOnlyList<string>? textColumns = null)
+    public static TableData Read(string path, IReadOnlyList<string> required, IReadOnlyList<string>? optional = null, IReadOnlyList<string>? textColumns = null,
+        IReadOnlyList<string>? missingAllowed = null)
     {
+        var missing = missingAllowed ?? [];
         optional ??= [];
         textColumns ??= [];
         if (string.IsNullOrWhiteSpace(path)) throw new InputException("table path is empty");
         if (!File.Exists(path)) throw new InputException($"table '{path}' does not exist");
         if (new FileInfo(path).Length > MaxBytes) throw new InputException($"table '{path}' is larger than {MaxBytes >> 30} GiB");
-        var result = path.EndsWith(".parquet", StringComparison.OrdinalIgnoreCase) ? ReadParquet(path, required, optional, textColumns) : ReadCsv(path, required, optional, textColumns);
+        var result = path.EndsWith(".parquet", StringComparison.OrdinalIgnoreCase) ? ReadParquet(path, required, optional, textColumns, missing) : ReadCsv(path, required, optional, textColumns, missing);
         int rows = result.Numbers[required[0]]!.Length;
         if (rows == 0) throw new InputException($"table '{path}' has no rows");
         return result;
     }
 
-    static TableData ReadCsv(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns)
+    static TableData ReadCsv(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns, IReadOnlyList<string> missing)
     {
         string[] lines;
         try { lines = File.ReadAllLines(path); }
@@ -65,6 +68,11 @@ public static class NumericTable
                 int c = index[name];
                 if (c >= cells.Length) throw new InputException($"table '{path}' line {li + 1}: column '{name}' is missing ({cells.Length} values)");
                 string cell = cells[c].Trim().Trim('"');
+                if (missing.Contains(name) && (cell.Length == 0 || cell.Equals("nan", StringComparison.OrdinalIgnoreCase)))
+                {
+                    lists[name].Add(double.NaN);
+                    continue;
+                }
                 if (!double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
                     throw new InputException($"table '{path}' line {li + 1}: column '{name}' = '{InputException.Shown(cell)}' is not a finite number");
                 lists[name].Add(v);
@@ -75,11 +83,11 @@ public static class NumericTable
         return new TableData(result, texts.ToDictionary(kv => kv.Key, kv => kv.Value.ToArray()));
     }
 
-    static TableData ReadParquet(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns)
+    static TableData ReadParquet(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns, IReadOnlyList<string> missing)
     {
         try
         {
-            return ReadParquetAsync(path, required, optional, textColumns).GetAwaiter().GetResult();
+            return ReadParquetAsync(path, required, optional, textColumns, missing).GetAwaiter().GetResult();
         }
         catch (InputException) { throw; }
         catch (Exception e) when (e is not OutOfMemoryException)
@@ -89,7 +97,7 @@ public static class NumericTable
         }
     }
 
-    static async Task<TableData> ReadParquetAsync(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns)
+    static async Task<TableData> ReadParquetAsync(string path, IReadOnlyList<string> required, IReadOnlyList<string> optional, IReadOnlyList<string> textColumns, IReadOnlyList<string> missing)
     {
         await using var reader = await ParquetReader.CreateAsync(path);
         var fields = reader.Schema.GetDataFields().ToDictionary(f => f.Name, StringComparer.OrdinalIgnoreCase);
@@ -117,7 +125,7 @@ public static class NumericTable
                 var field = fields[name];
                 double[] values = await ReadNumeric(rg, field, n, path);
                 for (int i = 0; i < n; i++)
-                    if (!double.IsFinite(values[i])) throw new InputException($"table '{path}' row {rowOffset + i + 1}: column '{name}' is not a finite number");
+                    if (!double.IsFinite(values[i]) && !(double.IsNaN(values[i]) && missing.Contains(name))) throw new InputException($"table '{path}' row {rowOffset + i + 1}: column '{name}' is not a finite number");
                 list.AddRange(values);
             }
             rowOffset += n;

@@ -12,6 +12,26 @@ public enum RunMode
     Oversample,
     /// <summary>One Poisson realisation of the survey: the number of systems is drawn, every weight is 1.</summary>
     Realization,
+    /// <summary>A labelled classifier training set: lensed and unlensed transients mixed in a set proportion, with splits.</summary>
+    Training,
+}
+
+/// <summary>Class balance and splits of a training set.</summary>
+public sealed record TrainingSettings
+{
+    /// <summary>Fraction of objects that are lensed (the rest are unlensed transients from the same rates and luminosity functions).</summary>
+    public double LensedFraction { get; init; } = 0.5;
+    /// <summary>Fraction assigned to "train" (by a hash of system_id).</summary>
+    public double TrainFraction { get; init; } = 0.7;
+    /// <summary>Fraction assigned to "validation"; the rest is "test".</summary>
+    public double ValidationFraction { get; init; } = 0.15;
+
+    /// <summary>The split of an object: a hash of its id (stable under re-runs, seeds and sharding).</summary>
+    public string SplitOf(long systemId)
+    {
+        double u = (Randomness.KeyedRandom.Mix((ulong)systemId * 0x9E3779B97F4A7C15UL + 0x5851F42D4C957F2DUL) >> 11) * (1.0 / (1UL << 53));
+        return u < TrainFraction ? "train" : u < TrainFraction + ValidationFraction ? "validation" : "test";
+    }
 }
 
 /// <summary>Run settings: mode, count and streaming batch size.</summary>
@@ -23,6 +43,8 @@ public sealed record RunSettings
     public long Count { get; init; } = 20_000;
     /// <summary>Systems per Parquet row group (memory is flat in the total count).</summary>
     public int BatchSize { get; init; } = 65_536;
+    /// <summary>Training-set settings (used in training mode).</summary>
+    public TrainingSettings Training { get; init; } = new();
 }
 
 /// <summary>A validated, immutable simulation scenario: everything a run depends on besides the code.</summary>

@@ -14,17 +14,30 @@ public static class ScenarioBinder
         var run = r.Section("run");
         string name = run.Text("name", 120);
         ulong seed = run.UInt64("seed");
+        string mode = run.Choice("mode", "oversample", "realization", "training");
+        var training = r.Section("training");
+        var trainingSettings = new TrainingSettings
+        {
+            LensedFraction = training.Double("lensed_fraction", 0, 1),
+            TrainFraction = training.Double("train_fraction", 0, 1),
+            ValidationFraction = training.Double("validation_fraction", 0, 1),
+        };
+        if (trainingSettings.TrainFraction + trainingSettings.ValidationFraction > 1 + 1e-12)
+            throw new InputException($"config keys 'training.train_fraction' + 'training.validation_fraction' = {trainingSettings.TrainFraction + trainingSettings.ValidationFraction}: must not exceed 1 (the rest is the test split)");
         var settings = new RunSettings
         {
-            Mode = run.Choice("mode", "oversample", "realization") == "oversample" ? RunMode.Oversample : RunMode.Realization,
+            Mode = mode switch { "oversample" => RunMode.Oversample, "realization" => RunMode.Realization, _ => RunMode.Training },
             Count = run.Long("count", 1, 10_000_000_000),
             BatchSize = run.Int("batch_size", 1, 4_000_000),
+            Training = trainingSettings,
         };
         var cosmology = BindCosmology(r.Section("cosmology"));
         var survey = BindSurvey(r.Section("survey"));
         var sources = BindSources(r.Section("sources"));
         var deflectors = BindDeflectors(r.Section("deflectors"));
         var observing = BindObserving(r, survey);
+        if (settings.Mode == RunMode.Training && !observing.LightCurves)
+            throw new InputException("config key 'run.mode' = 'training' needs light curves ('light_curves.enabled' = true): the features come from the photometry");
         if (deflectors.ZMin >= sources.ZMax)
             throw new InputException($"config key 'deflectors.z_min' = {deflectors.ZMin} must be below 'sources.z_max' = {sources.ZMax}");
         return new Scenario

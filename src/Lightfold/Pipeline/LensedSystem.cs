@@ -21,8 +21,10 @@ public struct LensedSystem
     public double ZSource;
     /// <summary>Lensing velocity dispersion [km/s].</summary>
     public double SigmaVKms;
-    /// <summary>The lens (θ_E, q, PA, γ, shear PA).</summary>
-    public SieShearLens Lens;
+    /// <summary>The lens (θ_E, q, PA, γ, shear PA); null for an unlensed object of a training set.</summary>
+    public SieShearLens? Lens;
+    /// <summary>False for the unlensed objects of a training set.</summary>
+    public bool Lensed;
     /// <summary>Source East offset [arcsec].</summary>
     public double SourceXArcsec;
     /// <summary>Source North offset [arcsec].</summary>

@@ -106,7 +106,7 @@ public sealed class ObservationSimulator
         }
         Span<double> microFactor = stackalloc double[LensedSystem.MaxImages];
         Span<double> candle = stackalloc double[nb];
-        bool useCandle = detection.RequireBrighterThanCandle && s.Type == Populations.TransientType.Ia;
+        bool useCandle = detection.RequireBrighterThanCandle && s.Type == Populations.TransientType.Ia && s.Lensed;
         if (useCandle) CandlePeaks(s.ZLens, lensLuminosityDistanceCm, candle);
         bool candlePassed = false;
 
@@ -153,6 +153,61 @@ public sealed class ObservationSimulator
             }
         }
         Decide(o, useCandle ? candlePassed : !detection.RequireBrighterThanCandle);
+    }
+
+    /// <summary>Per-band features of what the survey measured (observed fluxes only; no truth): the summed flux of every
+    /// measured unit (resolved images and unresolved blends) per visit, errors in quadrature.</summary>
+    /// <remarks>Per band: visits, detections (S/N ≥ the rule's threshold), peak flux and its time, rise (first detection to
+    /// peak) and decline (peak to last detection) times, and the colour to the next band at this band's peak (that band's
+    /// visit nearest in time within 3 d; NaN when either flux is not positive).</remarks>
+    public void Features(SystemObservations o, BandFeatures[] into)
+    {
+        int nb = into.Length;
+        for (int b = 0; b < nb; b++) into[b] = new BandFeatures { PeakFluxNjy = double.NaN, PeakMjd = double.NaN, RiseDays = double.NaN, DeclineDays = double.NaN, ColourToNextBandMag = double.NaN };
+        // Per visit totals, in row order (rows of one visit are contiguous).
+        var visits = new List<(double Mjd, int Band, double Flux, double Var)>();
+        for (int r = 0; r < o.Count;)
+        {
+            double mjd = o.Mjd[r];
+            int band = o.Band[r];
+            double flux = 0, variance = 0;
+            int k = r;
+            for (; k < o.Count && o.Mjd[k] == mjd && o.Band[k] == band; k++)
+            {
+                bool measured = o.ImageIndex[k] < 0 || IsResolvedRow(o, k);
+                if (!measured) continue;
+                flux += o.Flux[k];
+                variance += o.FluxErr[k] * o.FluxErr[k];
+            }
+            visits.Add((mjd, band, flux, variance));
+            r = k;
+        }
+        var firstDet = new double[nb];
+        var lastDet = new double[nb];
+        Array.Fill(firstDet, double.NaN);
+        Array.Fill(lastDet, double.NaN);
+        foreach (var v in visits)
+        {
+            ref var f = ref into[v.Band];
+            f.Visits++;
+            if (v.Flux / Math.Sqrt(v.Var) >= detection.MinSnr)
+            {
+                f.Detections++;
+                if (double.IsNaN(firstDet[v.Band])) firstDet[v.Band] = v.Mjd;
+                lastDet[v.Band] = v.Mjd;
+            }
+            if (double.IsNaN(f.PeakFluxNjy) || v.Flux > f.PeakFluxNjy) { f.PeakFluxNjy = v.Flux; f.PeakMjd = v.Mjd; }
+        }
+        for (int b = 0; b < nb; b++)
+        {
+            ref var f = ref into[b];
+            if (f.Detections > 0) { f.RiseDays = f.PeakMjd - firstDet[b]; f.DeclineDays = lastDet[b] - f.PeakMjd; }
+            if (b + 1 >= nb || !(f.PeakFluxNjy > 0)) continue;
+            double best = double.PositiveInfinity, other = double.NaN;
+            foreach (var v in visits)
+                if (v.Band == b + 1 && Math.Abs(v.Mjd - f.PeakMjd) <= 3 && Math.Abs(v.Mjd - f.PeakMjd) < best) { best = Math.Abs(v.Mjd - f.PeakMjd); other = v.Flux; }
+            if (other > 0) f.ColourToNextBandMag = -2.5 * Math.Log10(f.PeakFluxNjy / other);
+        }
     }
 
     int AddRow(SystemObservations o, in Visit v, int image, int group, double trueFlux, double micro, ref KeyedRandom rng)

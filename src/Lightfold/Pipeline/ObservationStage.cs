@@ -45,7 +45,10 @@ public sealed class ObservationStage
     /// <summary>Observes one system.</summary>
     public void Simulate(in LensedSystem s, SystemObservations into, List<Survey.Visit> visits)
         => simulator.Simulate(in s, distances.LuminosityDistanceMpc(s.ZSource) * Units.CmPerMpc,
-            distances.LuminosityDistanceMpc(s.ZLens) * Units.CmPerMpc, into, visits);
+            s.Lensed ? distances.LuminosityDistanceMpc(s.ZLens) * Units.CmPerMpc : double.NaN, into, visits);
+
+    /// <summary>Features of a simulated system's photometry.</summary>
+    public void Features(SystemObservations o, BandFeatures[] into) => simulator.Features(o, into);
 
     /// <summary>Metadata for the observations file: band pivots and the models used.</summary>
     public Dictionary<string, string> Metadata(Dictionary<string, string> common)

@@ -70,7 +70,10 @@ public static class SimulationRunner
 
         long first = total * target.Shard / target.Shards, end = total * (target.Shard + 1) / target.Shards;
         int batchSize = (int)Math.Min(lightCurves ? Math.Min(scenario.Run.BatchSize, LightCurveBatch) : scenario.Run.BatchSize, Math.Max(1, end - first));
-        var systems = CatalogSchema.Systems(batchSize, lightCurves);
+        bool training = scenario.Run.Mode == RunMode.Training;
+        var systems = CatalogSchema.Systems(batchSize, lightCurves, training);
+        var features = training ? CatalogSchema.Features(batchSize * observing!.BandNames.Length) : null;
+        var featureSlots = training ? Enumerable.Range(0, batchSize).Select(_ => new BandFeatures[observing!.BandNames.Length]).ToArray() : [];
         var images = CatalogSchema.Images(batchSize * 4, lightCurves);
         var observations = lightCurves ? CatalogSchema.Observations(ObservationRowGroup) : null;
         var drawn = new LensedSystem[batchSize];
@@ -80,6 +83,8 @@ public static class SimulationRunner
 
         await using var systemsWriter = await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.SystemsTable, target.Shard), systems, With(metadata, CatalogSchema.SystemsTable), ct);
         await using var imagesWriter = await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.ImagesTable, target.Shard), images, With(metadata, CatalogSchema.ImagesTable), ct);
+        await using var featuresWriter = features is null ? null
+            : await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.FeaturesTable, target.Shard), features, With(metadata, CatalogSchema.FeaturesTable), ct);
         await using var observationsWriter = observations is null ? null
             : await ParquetTableWriter.CreateAsync(CatalogSchema.PartPath(dir, CatalogSchema.ObservationsTable, target.Shard), observations, With(observing!.Metadata(metadata), CatalogSchema.ObservationsTable), ct);
         var options = new ParallelOptions { MaxDegreeOfParallelism = target.Threads > 0 ? target.Threads : Environment.ProcessorCount, CancellationToken = ct };
@@ -94,8 +99,15 @@ public static class SimulationRunner
             {
                 sampler.Draw(batchStart + i, weight, ref drawn[i]);
                 observing?.Simulate(in drawn[i], records[i], visitLists[i]);
+                if (training) observing!.Features(records[i], featureSlots[i]);
             });
             Fill(drawn.AsSpan(0, n), systems, images, lightCurves ? records : null, observing?.BandNames);
+            if (training)
+            {
+                FillTraining(drawn.AsSpan(0, n), systems, scenario.Run.Training);
+                FillFeatures(drawn.AsSpan(0, n), featureSlots, observing!.BandNames, features!);
+                await featuresWriter!.WriteAsync(features!, ct);
+            }
             await systemsWriter.WriteAsync(systems, ct);
             await imagesWriter.WriteAsync(images, ct);
             if (observationsWriter is not null)
@@ -118,6 +130,7 @@ public static class SimulationRunner
             await observationsWriter.WriteAsync(observations!, ct);
             await observationsWriter.CommitAsync();
         }
+        if (featuresWriter is not null) await featuresWriter.CommitAsync();
         await systemsWriter.CommitAsync();
         await imagesWriter.CommitAsync();
         DatasetManifest.MarkComplete(dir, target.Shard, new JsonObject
@@ -154,7 +167,8 @@ public static class SimulationRunner
             ["lightfold.seed"] = scenario.Seed.ToString(CultureInfo.InvariantCulture),
             ["lightfold.config"] = scenario.ResolvedJson,
             ["lightfold.cosmology"] = cosmology.ToJsonString(),
-            ["lightfold.mode"] = scenario.Run.Mode == RunMode.Oversample ? "oversample" : "realization",
+            ["lightfold.mode"] = scenario.Run.Mode switch { RunMode.Oversample => "oversample", RunMode.Realization => "realization", _ => "training" },
+            ["lightfold.truth_columns"] = "systems: all but system_id, label, split are truth (never classifier inputs); images: all; observations: true_flux_njy, micro_magnification, image_index, blend_group; features: observed only",
             ["lightfold.total_systems"] = total.ToString(CultureInfo.InvariantCulture),
             ["lightfold.weight"] = weight.ToString("R", CultureInfo.InvariantCulture),
             ["lightfold.expected_lensed_events"] = sampler.Yield.TotalLensed.ToString("R", CultureInfo.InvariantCulture),
@@ -163,6 +177,34 @@ public static class SimulationRunner
             ["lightfold.shard"] = $"{target.Shard}/{target.Shards}",
             ["lightfold.note"] = "simulated, not observed",
         };
+    }
+
+    static void FillTraining(ReadOnlySpan<LensedSystem> drawn, TableBuffer systems, TrainingSettings training)
+    {
+        string[] label = systems.S(Columns.Label), split = systems.S(Columns.Split);
+        for (int i = 0; i < drawn.Length; i++)
+        {
+            label[i] = drawn[i].Lensed ? "lensed" : "unlensed";
+            split[i] = training.SplitOf(drawn[i].SystemId);
+        }
+    }
+
+    static void FillFeatures(ReadOnlySpan<LensedSystem> drawn, BandFeatures[][] slots, string[] bands, TableBuffer table)
+    {
+        table.EnsureCapacity(drawn.Length * bands.Length);
+        long[] id = table.L(Columns.SystemId);
+        string[] band = table.S(Columns.Band);
+        int[] visits = table.I(Columns.NVisits), det = table.I(Columns.NDetections);
+        double[] peak = table.D(Columns.PeakFluxNjy), peakMjd = table.D(Columns.PeakMjd), rise = table.D(Columns.RiseDays), decline = table.D(Columns.DeclineDays), colour = table.D(Columns.ColourToNextBandMag);
+        int row = 0;
+        for (int i = 0; i < drawn.Length; i++)
+            for (int b = 0; b < bands.Length; b++, row++)
+            {
+                var f = slots[i][b];
+                id[row] = drawn[i].SystemId; band[row] = bands[b]; visits[row] = f.Visits; det[row] = f.Detections;
+                peak[row] = f.PeakFluxNjy; peakMjd[row] = f.PeakMjd; rise[row] = f.RiseDays; decline[row] = f.DeclineDays; colour[row] = f.ColourToNextBandMag;
+            }
+        table.Count = row;
     }
 
     static void Fill(ReadOnlySpan<LensedSystem> drawn, TableBuffer systems, TableBuffer images, SystemObservations[]? records, string[]? bandNames)
@@ -192,8 +234,9 @@ public static class SimulationRunner
         {
             ref readonly var s = ref drawn[i];
             sid[i] = s.SystemId; weight[i] = s.Weight; type[i] = TransientTypes.Name(s.Type);
-            zl[i] = s.ZLens; zsrc[i] = s.ZSource; sig[i] = s.SigmaVKms; te[i] = s.Lens.ThetaEArcsec; q[i] = s.Lens.AxisRatio;
-            pa[i] = s.Lens.PositionAngleDeg; g[i] = s.Lens.ShearGamma; gpa[i] = s.Lens.ShearPositionAngleDeg;
+            zl[i] = s.ZLens; zsrc[i] = s.ZSource; sig[i] = s.SigmaVKms;
+            te[i] = s.Lens?.ThetaEArcsec ?? double.NaN; q[i] = s.Lens?.AxisRatio ?? double.NaN;
+            pa[i] = s.Lens?.PositionAngleDeg ?? double.NaN; g[i] = s.Lens?.ShearGamma ?? double.NaN; gpa[i] = s.Lens?.ShearPositionAngleDeg ?? double.NaN;
             sx[i] = s.SourceXArcsec; sy[i] = s.SourceYArcsec; nImages[i] = s.ImageCount; caustic[i] = s.Status == Lensing.ImageSetStatus.OnCaustic;
             t0[i] = s.T0Mjd; mb[i] = s.PeakAbsoluteBMag; ddt[i] = s.TimeDelayDistanceMpc;
             double sep = 0, sum = 0;

@@ -1,5 +1,24 @@
 namespace Lightfold.Pipeline;
 
+/// <summary>Features of one band of one object, from observed photometry only (see <see cref="ObservationSimulator.Features"/>).</summary>
+public struct BandFeatures
+{
+    /// <summary>Visits in the band.</summary>
+    public int Visits;
+    /// <summary>Visits with S/N above the detection threshold.</summary>
+    public int Detections;
+    /// <summary>Largest observed flux [nJy].</summary>
+    public double PeakFluxNjy;
+    /// <summary>Time of that flux [MJD].</summary>
+    public double PeakMjd;
+    /// <summary>Days from the first detection to the peak.</summary>
+    public double RiseDays;
+    /// <summary>Days from the peak to the last detection.</summary>
+    public double DeclineDays;
+    /// <summary>This band minus the next band [mag] at this band's peak.</summary>
+    public double ColourToNextBandMag;
+}
+
 /// <summary>Observation rows and light-curve summaries of one system; reused from batch to batch (no per-system allocation once grown).</summary>
 public sealed class SystemObservations
 {

@@ -31,18 +31,32 @@ public sealed class SystemSampler
     /// <summary>How many systems the run has and the weight of each: N and Λ/N (oversample), or a Poisson N and 1 (realization).</summary>
     public (long Count, double Weight) RunSize()
     {
-        if (scenario.Run.Mode == RunMode.Oversample)
+        if (scenario.Run.Mode is RunMode.Oversample or RunMode.Training)
             return (scenario.Run.Count, Yield.TotalLensed / scenario.Run.Count);
         var rng = KeyedRandom.For(scenario.Seed, 0, Stage.EventCount);
         return (rng.Poisson(Yield.TotalLensed), 1.0);
     }
 
     /// <summary>Draws system <paramref name="systemId"/> and solves its lens equation.</summary>
+    /// <remarks>In training mode each id is lensed with the configured probability (its own keyed stream) and otherwise an
+    /// unlensed transient; weights then stand for the expected events of the row's class.</remarks>
     public void Draw(long systemId, double weight, ref LensedSystem s)
     {
+        if (scenario.Run.Mode == RunMode.Training)
+        {
+            var t = scenario.Run.Training;
+            var label = KeyedRandom.For(scenario.Seed, systemId, Stage.Unlensed, 1);
+            if (label.NextDouble() >= t.LensedFraction)
+            {
+                DrawUnlensed(systemId, Yield.TotalUnlensed / (scenario.Run.Count * (1 - t.LensedFraction)), ref s);
+                return;
+            }
+            weight = Yield.TotalLensed / (scenario.Run.Count * t.LensedFraction);
+        }
         var rng = KeyedRandom.For(scenario.Seed, systemId, Stage.Population);
         s.SystemId = systemId;
         s.Weight = weight;
+        s.Lensed = true;
         s.Type = Yield.SampleType(ref rng);
         s.ZSource = Yield.SampleSourceRedshift(s.Type, ref rng);
         s.ZLens = Yield.SampleDeflectorRedshift(s.ZSource, ref rng);
@@ -91,10 +105,36 @@ public sealed class SystemSampler
         }
         s.MicroEinsteinRadiusCm = Microlensing.MicrolensingSettings.EinsteinRadiusCm(dLens, dsrc, dds);
 
+        DrawTransient(systemId, ref s);
+    }
+
+    void DrawTransient(long systemId, ref LensedSystem s)
+    {
         var transient = KeyedRandom.For(scenario.Seed, systemId, Stage.Transient);
         var survey = scenario.Survey;
         s.T0Mjd = survey.StartMjd - survey.LeadInDays + (survey.EndMjd - survey.StartMjd + survey.LeadInDays) * transient.NextDouble();
         var peak = scenario.Sources.PeakMagnitudes[s.Type];
         s.PeakAbsoluteBMag = transient.Normal(peak.Mean, peak.Sigma);
+    }
+
+    /// <summary>An unlensed transient from the same rates and luminosity functions: one image, μ = 1, no lens.</summary>
+    public void DrawUnlensed(long systemId, double weight, ref LensedSystem s)
+    {
+        var rng = KeyedRandom.For(scenario.Seed, systemId, Stage.Unlensed);
+        s.SystemId = systemId;
+        s.Weight = weight;
+        s.Lensed = false;
+        s.Type = Yield.SampleUnlensedType(ref rng);
+        s.ZSource = Yield.SampleUnlensedRedshift(s.Type, ref rng);
+        s.ZLens = s.SigmaVKms = s.TimeDelayDistanceMpc = double.NaN;
+        s.Lens = null;
+        s.SourceXArcsec = s.SourceYArcsec = 0;
+        s.ImageCount = 1;
+        s.Status = ImageSetStatus.Regular;
+        s.Images[0] = new LensedImage(0, 0, 1.0, 0, 0, 0, 0, 0);
+        s.DelaysDays[0] = 0;
+        s.KappaStars[0] = 0;
+        s.MicroEinsteinRadiusCm = 0;
+        DrawTransient(systemId, ref s);
     }
 }

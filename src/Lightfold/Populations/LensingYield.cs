@@ -31,6 +31,8 @@ public sealed class LensingYield
     readonly double[] zs;                 // source grid
     readonly double[] depthKernel;        // ∫ dz_d dV/dz_d ⟨φσ⁴⟩ (4π/c²)² (D_ds/D_s)², per source grid point (without ⟨a⟩)
     readonly Dictionary<TransientType, double[]> sourceCdf = [];
+    readonly Dictionary<TransientType, double[]> unlensedCdf = [];
+    double[] unlensedTypeCdf = [];
     readonly double[] zd;                 // deflector proposal grid
     readonly double[] deflectorCdf;       // cumulative of dV/dz_d ⟨φσ⁴⟩(z_d)
     readonly TransientType[] types;
@@ -92,10 +94,22 @@ public sealed class LensingYield
             for (int i = 1; i <= SourceGrid; i++) cdf[i] = cdf[i - 1] + 0.5 * (integrand[i] + integrand[i - 1]) * (zs[i] - zs[i - 1]);
             for (int i = 0; i <= SourceGrid; i++) cdf[i] /= cdf[SourceGrid] > 0 ? cdf[SourceGrid] : 1;
             sourceCdf[type] = cdf;
+            var ucdf = new double[SourceGrid + 1];
+            for (int i = 1; i <= SourceGrid; i++) ucdf[i] = ucdf[i - 1] + 0.5 * (unlensed[i] + unlensed[i - 1]) * (zs[i] - zs[i - 1]);
+            for (int i = 0; i <= SourceGrid; i++) ucdf[i] /= ucdf[SourceGrid] > 0 ? ucdf[SourceGrid] : 1;
+            unlensedCdf[type] = ucdf;
             ByType[type] = new TypeYield(type, Simpson(unlensed), MeanAreaTwo * lensedKernel, MeanAreaFour * lensedKernel);
             expected.Add(MeanAreaTwo * lensedKernel);
         }
         TotalLensed = expected.Sum();
+        TotalUnlensed = ByType.Values.Sum(y => y.Unlensed);
+        unlensedTypeCdf = new double[types.Length];
+        double accU = 0;
+        for (int i = 0; i < types.Length; i++)
+        {
+            accU += ByType[types[i]].Unlensed;
+            unlensedTypeCdf[i] = TotalUnlensed > 0 ? accU / TotalUnlensed : (i + 1.0) / types.Length;
+        }
         typeCdf = new double[types.Length];
         double acc = 0;
         for (int i = 0; i < types.Length; i++)
@@ -122,6 +136,21 @@ public sealed class LensingYield
 
     /// <summary>Expected multiply-imaged events of all types over the explosion window.</summary>
     public double TotalLensed { get; }
+
+    /// <summary>Expected events of all types, lensed or not, over the explosion window.</summary>
+    public double TotalUnlensed { get; }
+
+    /// <summary>Draws a type in proportion to its expected number of events (unlensed).</summary>
+    public TransientType SampleUnlensedType(ref KeyedRandom rng)
+    {
+        double u = rng.NextDouble();
+        for (int i = 0; i < types.Length; i++) if (u < unlensedTypeCdf[i]) return types[i];
+        return types[^1];
+    }
+
+    /// <summary>Draws z from R/(1+z) dV/dz of <paramref name="type"/> (an unlensed event).</summary>
+    public double SampleUnlensedRedshift(TransientType type, ref KeyedRandom rng)
+        => InverseCdf(zs, unlensedCdf[type], rng.NextDouble());
 
     /// <summary>Multiply-imaged fraction of sources at z_s (the optical depth for ≥ 2 images).</summary>
     public double OpticalDepth(double zSource) => MeanAreaTwo * DepthKernel(zSource);

@@ -127,7 +127,7 @@ public class YieldTests
         for (int i = 0; i < n; i++)
         {
             sampler.Draw(i, 1, ref system);
-            radius[i] = Math.Sqrt(system.SourceXArcsec * system.SourceXArcsec + system.SourceYArcsec * system.SourceYArcsec) / system.Lens.ThetaEArcsec;
+            radius[i] = Math.Sqrt(system.SourceXArcsec * system.SourceXArcsec + system.SourceYArcsec * system.SourceYArcsec) / system.Lens!.ThetaEArcsec;
         }
         Assert.True(Statistics.KolmogorovSmirnov(radius, r => r * r) < Statistics.KsCritical1Percent(n));
 
