@@ -14,13 +14,13 @@ public abstract class ColumnBuffer
     internal abstract void EnsureCapacity(int rows);
 }
 
-/// <summary>A column of unmanaged values (double, long, int, bool, float).</summary>
-public sealed class ValueColumn<T> : ColumnBuffer where T : struct
+/// <summary>A column held in a growable array of <typeparamref name="T"/>.</summary>
+public abstract class ArrayColumn<T> : ColumnBuffer
 {
     readonly DataField<T> dataField;
 
     /// <summary>Creates the column with an initial capacity.</summary>
-    public ValueColumn(string name, int capacity)
+    protected ArrayColumn(string name, int capacity)
     {
         dataField = new DataField<T>(name, false);
         Values = new T[capacity];
@@ -29,57 +29,35 @@ public sealed class ValueColumn<T> : ColumnBuffer where T : struct
     /// <summary>The values; rows [0, table count) are written.</summary>
     public T[] Values { get; private set; }
 
+    /// <summary>The Parquet field.</summary>
+    protected DataField<T> TypedField => dataField;
+
     /// <inheritdoc/>
     public override string Name => dataField.Name;
     /// <inheritdoc/>
     public override DataField Field => dataField;
 
-    internal override Task WriteAsync(ParquetRowGroupWriter rowGroup, int rows, CancellationToken ct)
-        => rowGroup.WriteAsync<T>(dataField, new ReadOnlyMemory<T>(Values, 0, rows), null, null, ct);
-
     internal override void EnsureCapacity(int rows)
     {
-        if (rows > Values.Length)
-        {
-            var bigger = new T[Math.Max(rows, 2 * Values.Length)];
-            Array.Copy(Values, bigger, Values.Length);
-            Values = bigger;
-        }
+        if (rows <= Values.Length) return;
+        var bigger = new T[Math.Max(rows, 2 * Values.Length)];
+        Array.Copy(Values, bigger, Values.Length);
+        Values = bigger;
     }
 }
 
-/// <summary>A column of strings (short categorical values such as a transient type).</summary>
-public sealed class TextColumn : ColumnBuffer
+/// <summary>A column of unmanaged values (double, long, int, bool, float).</summary>
+public sealed class ValueColumn<T>(string name, int capacity) : ArrayColumn<T>(name, capacity) where T : struct
 {
-    readonly DataField<string> dataField;
-
-    /// <summary>Creates the column.</summary>
-    public TextColumn(string name, int capacity)
-    {
-        dataField = new DataField<string>(name, false);
-        Values = new string[capacity];
-    }
-
-    /// <summary>The values.</summary>
-    public string[] Values { get; private set; }
-
-    /// <inheritdoc/>
-    public override string Name => dataField.Name;
-    /// <inheritdoc/>
-    public override DataField Field => dataField;
-
     internal override Task WriteAsync(ParquetRowGroupWriter rowGroup, int rows, CancellationToken ct)
-        => rowGroup.WriteAsync(dataField, new ArraySegment<string>(Values, 0, rows), null);
+        => rowGroup.WriteAsync<T>(TypedField, new ReadOnlyMemory<T>(Values, 0, rows), null, null, ct);
+}
 
-    internal override void EnsureCapacity(int rows)
-    {
-        if (rows > Values.Length)
-        {
-            var bigger = new string[Math.Max(rows, 2 * Values.Length)];
-            Array.Copy(Values, bigger, Values.Length);
-            Values = bigger;
-        }
-    }
+/// <summary>A column of strings (short categorical values such as a transient type).</summary>
+public sealed class TextColumn(string name, int capacity) : ArrayColumn<string>(name, capacity)
+{
+    internal override Task WriteAsync(ParquetRowGroupWriter rowGroup, int rows, CancellationToken ct)
+        => rowGroup.WriteAsync(TypedField, new ArraySegment<string>(Values, 0, rows), null);
 }
 
 /// <summary>Struct-of-arrays rows of one table, reused batch after batch so memory stays flat.</summary>

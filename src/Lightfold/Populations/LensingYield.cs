@@ -141,16 +141,11 @@ public sealed class LensingYield
     public double TotalUnlensed { get; }
 
     /// <summary>Draws a type in proportion to its expected number of events (unlensed).</summary>
-    public TransientType SampleUnlensedType(ref KeyedRandom rng)
-    {
-        double u = rng.NextDouble();
-        for (int i = 0; i < types.Length; i++) if (u < unlensedTypeCdf[i]) return types[i];
-        return types[^1];
-    }
+    public TransientType SampleUnlensedType(ref KeyedRandom rng) => Tabulated.Pick(types, unlensedTypeCdf, rng.NextDouble());
 
     /// <summary>Draws z from R/(1+z) dV/dz of <paramref name="type"/> (an unlensed event).</summary>
     public double SampleUnlensedRedshift(TransientType type, ref KeyedRandom rng)
-        => InverseCdf(zs, unlensedCdf[type], rng.NextDouble());
+        => Tabulated.InverseCdf(zs, unlensedCdf[type], rng.NextDouble());
 
     /// <summary>Multiply-imaged fraction of sources at z_s (the optical depth for ≥ 2 images).</summary>
     public double OpticalDepth(double zSource) => MeanAreaTwo * DepthKernel(zSource);
@@ -257,25 +252,20 @@ public sealed class LensingYield
     }
 
     /// <summary>Draws a type in proportion to its expected number of lensed events.</summary>
-    public TransientType SampleType(ref KeyedRandom rng)
-    {
-        double u = rng.NextDouble();
-        for (int i = 0; i < types.Length; i++) if (u < typeCdf[i]) return types[i];
-        return types[^1];
-    }
+    public TransientType SampleType(ref KeyedRandom rng) => Tabulated.Pick(types, typeCdf, rng.NextDouble());
 
     /// <summary>Draws z_s from the lensed-event integrand of <paramref name="type"/>.</summary>
     public double SampleSourceRedshift(TransientType type, ref KeyedRandom rng)
-        => InverseCdf(zs, sourceCdf[type], rng.NextDouble());
+        => Tabulated.InverseCdf(zs, sourceCdf[type], rng.NextDouble());
 
     /// <summary>Draws z_d for a source at z_s from dV/dz_d ⟨φσ⁴⟩(z_d) (D_ds/D_s)², by rejection.</summary>
     public double SampleDeflectorRedshift(double zSource, ref KeyedRandom rng)
     {
-        double top = Interpolate(zd, deflectorCdf, Math.Min(zSource, zd[^1]));
+        double top = Tabulated.Interpolate(zd, deflectorCdf, Math.Min(zSource, zd[^1]));
         double ds = distances.AngularDiameterDistanceMpc(zSource);
         for (int attempt = 0; attempt < 100_000; attempt++)
         {
-            double z = InverseCdf(zd, deflectorCdf, rng.NextDouble() * top / deflectorCdf[^1]);
+            double z = Tabulated.InverseCdf(zd, deflectorCdf, rng.NextDouble() * top / deflectorCdf[^1]);
             double ratio = distances.AngularDiameterDistanceMpc(z, zSource) / ds;
             if (rng.NextDouble() < ratio * ratio) return z;
         }
@@ -300,29 +290,7 @@ public sealed class LensingYield
         throw new InvalidOperationException("shape rejection did not converge");
     }
 
-    static double InverseCdf(double[] x, double[] cdf, double u)
-    {
-        double target = u * cdf[^1];
-        int lo = 0, hi = cdf.Length - 1;
-        while (hi - lo > 1)
-        {
-            int mid = (lo + hi) >> 1;
-            if (cdf[mid] <= target) lo = mid; else hi = mid;
-        }
-        double span = cdf[hi] - cdf[lo];
-        double f = span > 0 ? (target - cdf[lo]) / span : 0.5;
-        return x[lo] + f * (x[hi] - x[lo]);
-    }
 
-    static double Interpolate(double[] x, double[] y, double v)
-    {
-        if (v <= x[0]) return y[0];
-        if (v >= x[^1]) return y[^1];
-        double step = x[1] - x[0];
-        int i = Math.Min((int)((v - x[0]) / step), x.Length - 2);
-        double f = (v - x[i]) / step;
-        return y[i] + f * (y[i + 1] - y[i]);
-    }
 }
 
 /// <summary>Expected events of one type over the explosion window.</summary>

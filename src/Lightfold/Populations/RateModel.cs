@@ -70,7 +70,7 @@ public sealed class VolumetricRates
         {
             double r = model.IaShape == IaRateShape.PowerLaw
                 ? model.IaRateH70 * Math.Pow((1 + z) / (1 + model.IaZRef), model.IaExponent)
-                : model.IaRateH70 * Interpolate(dtdZ!, dtdRate!, z);
+                : model.IaRateH70 * Numerics.Tabulated.Interpolate(dtdZ!, dtdRate!, z);
             return r * h70Cubed;
         }
         return model.CcScale * model.CcPerSolarMass * StarFormationHistory.MadauDickinson2014(z)
@@ -126,13 +126,4 @@ public sealed class VolumetricRates
         return (zs, rates);
     }
 
-    static double Interpolate(double[] x, double[] y, double v)
-    {
-        if (v <= x[0]) return y[0];
-        if (v >= x[^1]) return y[^1];
-        double step = x[1] - x[0];
-        int i = Math.Min((int)(v / step), x.Length - 2);
-        double f = (v - x[i]) / step;
-        return y[i] + f * (y[i + 1] - y[i]);
-    }
 }
