@@ -82,6 +82,7 @@ public static class ScenarioBinder
             Pixels = map.Int("pixels", 16, 10_000),
             RaysPerPixel = map.Double("rays_per_pixel", 1, 100_000),
             MarginEinsteinRadii = map.Double("margin_einstein_radii", 0, 100, "R_E"),
+            Seed = map.UInt64("seed"),
             KappaStep = grid.Double("kappa_step", 0.005, 1),
             GammaStep = grid.Double("gamma_step", 0.005, 1),
             StarFractions = grid.DoubleList("star_fractions", 1e-3, 1, 1, 50),

@@ -30,13 +30,16 @@ public sealed record MapBankSettings
     public IReadOnlyList<double> StarFractions { get; init; } = [0.1, 0.3, 0.6, 1.0];
     /// <summary>Initial mass function.</summary>
     public InitialMassFunction Imf { get; init; } = new();
+    /// <summary>Seed of the bank's star fields, independent of the run seed so runs with different seeds share one cached
+    /// bank (their sources still sit at different, run-keyed places on the maps).</summary>
+    public ulong Seed { get; init; } = 1;
 }
 
 /// <summary>A bank of magnification maps over a (κ, γ, κ_*/κ) grid: an image uses the map of the nearest node.</summary>
 /// <remarks>Nearest-neighbour rule: κ and γ round to the nearest node of their offset grids, κ_*/κ to the nearest listed
 /// fraction; the node's κ_* is that fraction times the node's κ. The micro factor is the map normalised by the node's
 /// macro magnification, so it carries the right statistics for the node. Maps are built on first use (thread-safe,
-/// once each) and kept in the cache; the node's seed derives from the run seed and the node.</remarks>
+/// once each) and kept in the cache; the node's seed derives from the bank seed and the node.</remarks>
 public sealed class MapBank
 {
     readonly MapBankSettings settings;
@@ -44,11 +47,11 @@ public sealed class MapBank
     readonly IMapCache? cache;
     readonly ConcurrentDictionary<string, Lazy<MagnificationMap>> maps = new();
 
-    /// <summary>Creates an empty bank.</summary>
-    public MapBank(MapBankSettings settings, ulong seed, IMapCache? cache)
+    /// <summary>Creates an empty bank (star fields keyed by <see cref="MapBankSettings.Seed"/>).</summary>
+    public MapBank(MapBankSettings settings, IMapCache? cache)
     {
         this.settings = settings;
-        this.seed = seed;
+        seed = settings.Seed;
         this.cache = cache;
     }
 

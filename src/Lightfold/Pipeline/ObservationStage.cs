@@ -18,7 +18,7 @@ public sealed class ObservationStage
         Resources = resources;
         Bank = new LightCurveBank(resources.Models, resources.Bands, scenario.Sources.ZMax);
         var ia = scenario.Sources.PeakMagnitudes[Populations.TransientType.Ia];
-        Maps = scenario.Microlensing.Enabled ? new Microlensing.MapBank(scenario.Microlensing.Bank, scenario.Seed, FitsMapCache.Default()) : null;
+        Maps = scenario.Microlensing.Enabled ? new Microlensing.MapBank(scenario.Microlensing.Bank, FitsMapCache.Default()) : null;
         simulator = new ObservationSimulator(scenario.Seed, Bank, resources.Schedule, o.Noise, o.Detection, o.BlendFractionOfSeeing,
             o.PreExplosionDays, o.HostEbvMean, o.MilkyWayEbv, o.RV, ia.Mean, ia.Sigma, scenario.Microlensing, Maps);
         distances = new FlrwCosmology(scenario.Cosmology).Table;
