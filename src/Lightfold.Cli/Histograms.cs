@@ -5,8 +5,9 @@ namespace Lightfold.Cli;
 /// <summary>Weighted step histograms drawn with ScottPlot (several series on shared bins).</summary>
 public static class Histograms
 {
-    /// <summary>A plot of weighted histograms of each series on the given bin edges, per year when <paramref name="years"/> is set.</summary>
-    public static Plot Build(string title, string xLabel, string yLabel, double[] edges, IReadOnlyList<(string Name, double[] Values, double[] Weights)> series, bool logX = false)
+    /// <summary>A plot of weighted histograms of each series on the given bin edges (each normalised to unit sum when asked).</summary>
+    public static Plot Build(string title, string xLabel, string yLabel, double[] edges, IReadOnlyList<(string Name, double[] Values, double[] Weights)> series,
+        bool logX = false, bool normalise = false)
     {
         var plot = new Plot();
         var palette = new ScottPlot.Palettes.Category10();
@@ -22,6 +23,8 @@ public static class Histograms
                 if (k < 0) k = ~k - 1;
                 if (k >= 0 && k < heights.Length) heights[k] += weights[i];
             }
+            double total = heights.Sum();
+            if (normalise && total > 0) for (int k = 0; k < heights.Length; k++) heights[k] /= total;
             // Step outline: x at edges, y repeated.
             var xs = new List<double>();
             var ys = new List<double>();

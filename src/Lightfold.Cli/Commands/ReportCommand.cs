@@ -157,17 +157,23 @@ public static class ReportCommand
             ? [("all", values, w), ("detected", det.Select(i => values[i]).ToArray(), det.Select(i => w[i]).ToArray())]
             : [("all", values, w)];
         var files = new List<string>();
-        void Save(string file, params Plot[] panels)
+        void Save(string file, Plot[] panels)
         {
             string path = Path.Combine(outDir, file);
             PngPanels.Save(path, panels, 900, 420);
             files.Add(path);
         }
-        Save("redshifts.png",
-            Histograms.Build("source redshift (weighted, per catalog)", "z_source", "expected events", Histograms.Edges(0, 3.2, 32), Series(s.D(Columns.ZSource))),
-            Histograms.Build("lens redshift", "z_lens", "expected events", Histograms.Edges(0, 2.0, 40), Series(s.D(Columns.ZLens))));
-        Save("separations.png", Histograms.Build("largest image separation", "separation [arcsec]", "expected events", Histograms.Edges(0, 5, 50), Series(s.D(Columns.MaxSeparationArcsec))));
-        Save("delays.png", Histograms.Build("longest delay", "delay [days]", "expected events", Histograms.Edges(-1, 3, 40), Series(s.D(Columns.MaxDelayDays).Select(v => Math.Max(v, 1e-3)).ToArray()), logX: true));
+        // Each quantity twice: expected events in the catalog (all and detected), then each series normalised to 1 so the
+        // detected shape can be compared with the parent population.
+        Plot[] Both(string title, string x, double[] edges, double[] values, bool logX = false) =>
+        [
+            Histograms.Build($"{title}: expected events (weighted)", x, "expected events", edges, Series(values), logX),
+            Histograms.Build($"{title}: shapes (each normalised to 1)", x, "fraction per bin", edges, Series(values), logX, normalise: true),
+        ];
+        Save("redshifts.png", [.. Both("source redshift", "z_source", Histograms.Edges(0, 3.2, 32), s.D(Columns.ZSource)),
+            .. Both("lens redshift", "z_lens", Histograms.Edges(0, 2.0, 40), s.D(Columns.ZLens))]);
+        Save("separations.png", Both("largest image separation", "separation [arcsec]", Histograms.Edges(0, 5, 50), s.D(Columns.MaxSeparationArcsec)));
+        Save("delays.png", Both("longest delay", "delay [days]", Histograms.Edges(-1, 3, 40), s.D(Columns.MaxDelayDays).Select(v => Math.Max(v, 1e-3)).ToArray(), logX: true));
         // Per-image |μ|: weights from the parent system.
         var weightById = new Dictionary<long, (double W, bool D)>();
         for (int i = 0; i < n; i++) weightById[s.L(Columns.SystemId)[i]] = (w[i], detected[i]);
@@ -177,9 +183,10 @@ public static class ReportCommand
         var imageSeries = lightCurves
             ? new (string, double[], double[])[] { ("all images", mu, wi), ("images of detected systems", mu.Where((_, k) => di[k]).ToArray(), wi.Where((_, k) => di[k]).ToArray()) }
             : [("all images", mu, wi)];
-        Save("magnifications.png",
+        Save("magnifications.png", [
             Histograms.Build("total magnification Σ|μ|", "Σ|μ|", "expected events", Histograms.Edges(-0.5, 2.5, 45), Series(s.D(Columns.TotalMagnification)), logX: true),
-            Histograms.Build("per-image |μ|", "|μ|", "expected images", Histograms.Edges(-2, 2.5, 45), imageSeries, logX: true));
+            Histograms.Build("total magnification Σ|μ|: shapes (each normalised to 1)", "Σ|μ|", "fraction per bin", Histograms.Edges(-0.5, 2.5, 45), Series(s.D(Columns.TotalMagnification)), logX: true, normalise: true),
+            Histograms.Build("per-image |μ| (shapes, each normalised to 1)", "|μ|", "fraction per bin", Histograms.Edges(-2, 2.5, 45), imageSeries, logX: true, normalise: true)]);
         return files;
     }
 
@@ -202,12 +209,11 @@ public static class ReportCommand
             result.Add((Math.Round(m, 2), sum / years));
         }
         var plot = new Plot();
-        var line = plot.Add.Scatter(result.Select(r => r.Item1).ToArray(), result.Select(r => Math.Max(r.Item2, 1e-3)).ToArray());
-        line.LegendText = "brightest image peak < m";
-        plot.Axes.SetLimitsY(0, Math.Max(1, result.Max(r => r.Item2)) * 1.05);
+        var line = plot.Add.Scatter(result.Select(r => r.Item1).ToArray(), result.Select(r => Math.Log10(Math.Max(r.Item2, 1e-2))).ToArray());
+        line.LegendText = "brightest image peaks brighter than m";
         plot.Title("expected lensed transients per year brighter than a limiting magnitude (simulated)");
-        plot.XLabel("limiting AB magnitude m");
-        plot.YLabel("systems per year");
+        plot.XLabel("limiting AB magnitude m (peak true flux of the brightest image at the visits)");
+        plot.YLabel("log10(systems per year)");
         PngPanels.Save(Path.Combine(outDir, "yield_vs_depth.png"), [plot], 900, 500);
         return result;
     }
