@@ -16,7 +16,7 @@ public static class SimulateCommand
         var seed = new Option<string?>("--seed") { Description = "master seed (same as --set run.seed=S)" };
         var mode = new Option<string?>("--mode") { Description = "oversample (count weighted systems), realization (one Poisson draw of the survey) or training (labelled lensed + unlensed objects with splits and features)" };
         mode.AcceptOnlyFromAmong("oversample", "realization", "training");
-        var count = new Option<string?>("--count") { Description = "systems in oversample mode (same as --set run.count=N)" };
+        var count = new Option<string?>("--count") { Description = "systems in oversample and training modes (same as --set run.count=N)" };
         var shard = new Option<int>("--shard") { Description = "this process's part, 0-based (with --shards)", DefaultValueFactory = _ => 0 };
         var shards = new Option<int>("--shards") { Description = "number of parts the run is split into", DefaultValueFactory = _ => 1 };
         var threads = new Option<int>("--threads") { Description = "worker threads (default: all cores); output does not depend on it", DefaultValueFactory = _ => 0 };
