@@ -23,7 +23,7 @@ public static class ForecastCommand
         {
             var s = scenario.Load(parse, context);
             var cosmology = new FlrwCosmology(s.Cosmology);
-            var yield = new LensingYield(cosmology, s.Deflectors, s.Sources, s.Survey);
+            var yield = new LensingYield(cosmology, s.Deflectors, s.Sources, s.Survey, Catalog.CrossSectionTableCache.Shared);
             if (parse.GetValue(format) == "json") WriteJson(context.Out, s, yield);
             else WriteTable(context.Out, s, yield);
             return ExitCodes.Ok;

@@ -12,16 +12,7 @@ public sealed class FitsMapCache(string folder) : IMapCache
 {
     /// <summary>The default per-user cache folder for maps.</summary>
     public static FitsMapCache Default()
-    {
-        string? root = Environment.GetEnvironmentVariable("LIGHTFOLD_CACHE_DIR");
-        if (string.IsNullOrEmpty(root))
-        {
-            string? xdg = Environment.GetEnvironmentVariable("XDG_CACHE_HOME");
-            root = !string.IsNullOrEmpty(xdg) ? Path.Combine(xdg, "lightfold")
-                : Path.Combine(Environment.GetFolderPath(Environment.SpecialFolder.UserProfile), ".cache", "lightfold");
-        }
-        return new FitsMapCache(Path.Combine(root, "maps"));
-    }
+        => new(Path.Combine(CrossSectionTableCache.Folder() ?? Path.Combine(Path.GetTempPath(), "lightfold-cache"), "maps"));
 
     string PathFor(MapSpec spec) => Path.Combine(folder, Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(spec.CacheKey)))[..32] + ".fits");
 

@@ -6,8 +6,7 @@ namespace Lightfold.Lensing;
 /// in steps of 7.5° (the areas are even in Δ and have period 180°, so Δ folds into that range). Tricubic
 /// Catmull–Rom interpolation; the tests hold it within 0.5% of the direct computation (for the four-image
 /// area: within 0.5% of the two-image area where the four-image area itself is tiny). Building takes about
-/// three seconds on two cores; the result is cached on disk ($LIGHTFOLD_CACHE_DIR, else $XDG_CACHE_HOME/lightfold,
-/// else ~/.cache/lightfold) and shared, immutable, within the process.
+/// three seconds on two cores; the catalog layer keeps a copy on disk (Catalog.CrossSectionTableCache). Immutable.
 /// </remarks>
 public sealed class CrossSectionTable
 {
@@ -19,85 +18,50 @@ public sealed class CrossSectionTable
     const double QStep = 0.025, GStep = 0.025, AStep = 7.5;
     const int NQ = 33, NG = 13, NA = 13;
 
-    static readonly Lazy<CrossSectionTable> shared = new(() => new CrossSectionTable(), LazyThreadSafetyMode.ExecutionAndPublication);
+    static readonly Lazy<CrossSectionTable> shared = new(Build, LazyThreadSafetyMode.ExecutionAndPublication);
 
-    readonly float[] two = new float[NQ * NG * NA];
-    readonly float[] four = new float[NQ * NG * NA];
-    readonly float[] radius = new float[NQ * NG * NA];
+    readonly float[] two, four, radius;
 
-    /// <summary>The process-wide table (built on first use).</summary>
+    /// <summary>A process-wide table computed on first use (no files; the pipeline's disk-cached copy is
+    /// <c>Catalog.CrossSectionTableCache.Shared</c>).</summary>
     public static CrossSectionTable Shared => shared.Value;
 
-    CrossSectionTable()
+    CrossSectionTable(float[] two, float[] four, float[] radius)
     {
-        if (TryLoad()) return;
-        Parallel.For(0, NQ * NG * NA, index =>
+        this.two = two;
+        this.four = four;
+        this.radius = radius;
+    }
+
+    /// <summary>Computes every grid node (about three seconds on two cores).</summary>
+    public static CrossSectionTable Build()
+    {
+        int n = NQ * NG * NA;
+        var table = new CrossSectionTable(new float[n], new float[n], new float[n]);
+        Parallel.For(0, n, index =>
         {
             int ia = index % NA, ig = index / NA % NG, iq = index / (NA * NG);
             var cs = CrossSections.Compute(Math.Min(1.0, MinAxisRatio + iq * QStep), ig * GStep, ia * AStep);
-            two[index] = (float)cs.AtLeastTwo;
-            four[index] = (float)cs.AtLeastFour;
-            radius[index] = (float)cs.MaxRadius;
+            table.two[index] = (float)cs.AtLeastTwo;
+            table.four[index] = (float)cs.AtLeastFour;
+            table.radius[index] = (float)cs.MaxRadius;
         });
-        TrySave();
+        return table;
     }
 
-    // A cache file next to other per-user caches; its name carries the grid and algorithm version, so a
-    // change of either builds a new one. Any failure to read or write just means building in memory.
-    const string CacheName = "cross-sections-v1-q33-g13-a13-c1024-r2048.bin";
+    /// <summary>Name that identifies this grid and algorithm version (for caches).</summary>
+    public const string VersionName = "cross-sections-v1-q33-g13-a13-c1024-r2048";
 
-    static string? CachePath()
-    {
-        string? root = Environment.GetEnvironmentVariable("LIGHTFOLD_CACHE_DIR");
-        if (string.IsNullOrEmpty(root))
-        {
-            string? xdg = Environment.GetEnvironmentVariable("XDG_CACHE_HOME");
-            string home = Environment.GetFolderPath(Environment.SpecialFolder.UserProfile);
-            root = !string.IsNullOrEmpty(xdg) ? Path.Combine(xdg, "lightfold") : string.IsNullOrEmpty(home) ? null : Path.Combine(home, ".cache", "lightfold");
-        }
-        return root is null ? null : Path.Combine(root, CacheName);
-    }
+    /// <summary>The node values as one array (two, four, radius), for a cache to store.</summary>
+    public float[] ToArray() => [.. two, .. four, .. radius];
 
-    bool TryLoad()
+    /// <summary>A table from values stored by <see cref="ToArray"/>; null if they do not fit this grid or are not finite.</summary>
+    public static CrossSectionTable? FromArray(float[] values)
     {
-        try
-        {
-            string? path = CachePath();
-            if (path is null || !File.Exists(path)) return false;
-            byte[] bytes = File.ReadAllBytes(path);
-            int n = two.Length * sizeof(float);
-            if (bytes.Length != 3 * n) return false;
-            Buffer.BlockCopy(bytes, 0, two, 0, n);
-            Buffer.BlockCopy(bytes, n, four, 0, n);
-            Buffer.BlockCopy(bytes, 2 * n, radius, 0, n);
-            return two.All(float.IsFinite) && four.All(float.IsFinite) && radius.All(v => v > 0);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            return false;
-        }
-    }
-
-    void TrySave()
-    {
-        try
-        {
-            string? path = CachePath();
-            if (path is null) return;
-            Directory.CreateDirectory(Path.GetDirectoryName(path)!);
-            int n = two.Length * sizeof(float);
-            var bytes = new byte[3 * n];
-            Buffer.BlockCopy(two, 0, bytes, 0, n);
-            Buffer.BlockCopy(four, 0, bytes, n, n);
-            Buffer.BlockCopy(radius, 0, bytes, 2 * n, n);
-            string temp = path + $".{Environment.ProcessId}.tmp";
-            File.WriteAllBytes(temp, bytes);
-            File.Move(temp, path, overwrite: true);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            // No cache: the next process builds the table again.
-        }
+        int n = NQ * NG * NA;
+        if (values.Length != 3 * n || !values.All(float.IsFinite)) return null;
+        var table = new CrossSectionTable(values[..n], values[n..(2 * n)], values[(2 * n)..]);
+        return table.radius.All(r => r > 0) ? table : null;
     }
 
     static int Index(int iq, int ig, int ia) => (iq * NG + ig) * NA + ia;

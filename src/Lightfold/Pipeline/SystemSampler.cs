@@ -19,7 +19,7 @@ public sealed class SystemSampler
         this.scenario = scenario;
         Cosmology = new FlrwCosmology(scenario.Cosmology);
         distances = Cosmology.Table;
-        Yield = new LensingYield(Cosmology, scenario.Deflectors, scenario.Sources, scenario.Survey);
+        Yield = new LensingYield(Cosmology, scenario.Deflectors, scenario.Sources, scenario.Survey, Catalog.CrossSectionTableCache.Shared);
     }
 
     /// <summary>The cosmology of the scenario.</summary>

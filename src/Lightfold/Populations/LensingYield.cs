@@ -41,7 +41,12 @@ public sealed class LensingYield
     readonly double shapeBound;
 
     /// <summary>Computes every integral; about 0.1 s plus the first use of the cross-section table.</summary>
-    public LensingYield(FlrwCosmology cosmology, DeflectorPopulation deflectors, SourcePopulation sources, SurveyWindow survey)
+    /// <param name="cosmology">Distances.</param>
+    /// <param name="deflectors">Lens population.</param>
+    /// <param name="sources">Transient population.</param>
+    /// <param name="survey">Footprint and window.</param>
+    /// <param name="table">Cross-section lookup (the pipeline passes its disk-cached copy; default: computed in memory).</param>
+    public LensingYield(FlrwCosmology cosmology, DeflectorPopulation deflectors, SourcePopulation sources, SurveyWindow survey, CrossSectionTable? table = null)
     {
         this.cosmology = cosmology;
         distances = cosmology.Table;
@@ -49,10 +54,10 @@ public sealed class LensingYield
         this.sources = sources;
         Survey = survey;
         littleH = cosmology.Parameters.LittleH;
-        table = CrossSectionTable.Shared;
+        this.table = table ?? CrossSectionTable.Shared;
         PrepareMoment4();
         (MeanAreaTwo, MeanAreaFour) = MeanCrossSections();
-        shapeBound = 1.001 * table.MaxAtLeastTwo;
+        shapeBound = 1.001 * this.table.MaxAtLeastTwo;
         Rates = new VolumetricRates(sources.Rates, cosmology, sources.ZMax);
 
         // Deflector proposal: dV/dz_d ⟨φσ⁴⟩(z_d) on [z_min, z_max].
