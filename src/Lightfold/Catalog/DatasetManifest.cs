@@ -32,7 +32,9 @@ public static class DatasetManifest
     /// <summary>Creates the manifest, or checks that an existing one matches; throws <see cref="InputException"/> if not.</summary>
     public static void EnsureMatches(string directory, JsonObject identity)
     {
-        Directory.CreateDirectory(directory);
+        if (File.Exists(directory)) throw new InputException($"--out '{directory}' is a file, not a folder");
+        try { Directory.CreateDirectory(directory); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { throw new InputException($"--out '{directory}' cannot be created: {e.Message}"); }
         string path = Path.Combine(directory, "manifest.json");
         string text = identity.ToJsonString(new JsonSerializerOptions { WriteIndented = true });
         if (!File.Exists(path))

@@ -59,7 +59,6 @@ public static class SimulationRunner
         var sampler = new SystemSampler(scenario);
         var (total, weight) = sampler.RunSize();
         string dir = Path.GetFullPath(target.OutputDirectory);
-        if (File.Exists(dir)) throw new InputException($"--out '{target.OutputDirectory}' is a file, not a folder");
         DatasetManifest.EnsureMatches(dir, DatasetManifest.Identity(scenario.ResolvedJson, scenario.Seed, target.Shards, target.ToolVersion));
         if (DatasetManifest.IsComplete(dir, target.Shard))
             return new RunSummary(total, weight, 0, 0, 0, (0, 0), true, sampler.Yield);
