@@ -34,17 +34,17 @@ public static class LensCommand
         command.SetAction(parse =>
         {
             var cosmology = new FlrwCosmology(scenario.Load(parse, context).Cosmology);
-            double zl = Positive(parse.GetValue(zLens), "--z-lens", 0, 20), zs = Positive(parse.GetValue(zSource), "--z-source", 0, 20);
+            double zl = OptionChecks.Above(parse.GetValue(zLens), "--z-lens", 0, 20), zs = OptionChecks.Above(parse.GetValue(zSource), "--z-source", 0, 20);
             if (zs <= zl) throw new InputException($"--z-source {zs} must exceed --z-lens {zl}");
-            double sigmaKms = Positive(parse.GetValue(sigma), "--sigma-v", 0, 2000);
+            double sigmaKms = OptionChecks.Above(parse.GetValue(sigma), "--sigma-v", 0, 2000);
             double thetaE = EinsteinRadius.IsothermalArcsec(sigmaKms, cosmology.AngularDiameterDistanceMpc(zl, zs) / cosmology.AngularDiameterDistanceMpc(zs));
             var lens = new SieShearLens
             {
                 ThetaEArcsec = thetaE,
-                AxisRatio = InRange(parse.GetValue(q), "--q", 0.05, 1.0),
-                PositionAngleDeg = InRange(parse.GetValue(pa), "--pa", -360, 360),
-                ShearGamma = InRange(parse.GetValue(shear), "--shear", 0.0, 0.9),
-                ShearPositionAngleDeg = InRange(parse.GetValue(shearPa), "--shear-pa", -360, 360),
+                AxisRatio = OptionChecks.InRange(parse.GetValue(q), "--q", 0.05, 1.0),
+                PositionAngleDeg = OptionChecks.InRange(parse.GetValue(pa), "--pa", -360, 360),
+                ShearGamma = OptionChecks.InRange(parse.GetValue(shear), "--shear", 0.0, 0.9),
+                ShearPositionAngleDeg = OptionChecks.InRange(parse.GetValue(shearPa), "--shear-pa", -360, 360),
             };
             double bx = parse.GetValue(sx), by = parse.GetValue(sy);
             if (!double.IsFinite(bx) || !double.IsFinite(by)) throw new InputException("--source-x and --source-y must be finite");
@@ -60,11 +60,7 @@ public static class LensCommand
         return command;
     }
 
-    static double InRange(double v, string name, double min, double max)
-        => double.IsFinite(v) && v >= min && v <= max ? v : throw new InputException($"{name} {v}: expected a value in [{min}, {max}]");
 
-    static double Positive(double v, string name, double min, double max)
-        => double.IsFinite(v) && v > min && v <= max ? v : throw new InputException($"{name} {v}: expected a value in ({min}, {max}]");
 
     static readonly string[] ImageColumns =
         [Columns.ImageIndex, Columns.XArcsec, Columns.YArcsec, Columns.Magnification, Columns.DelayDays, Columns.Kappa, Columns.Gamma];

@@ -37,19 +37,19 @@ public static class MicromapCommand
         scenario.AddTo(command);
         command.SetAction(parse =>
         {
-            double k = Range(parse.GetValue(kappa), "--kappa", 0, 5), g = Range(parse.GetValue(gamma), "--gamma", 0, 5), ks = Range(parse.GetValue(kappaStar), "--kappa-star", 0, 5);
+            double k = OptionChecks.InRange(parse.GetValue(kappa), "--kappa", 0, 5), g = OptionChecks.InRange(parse.GetValue(gamma), "--gamma", 0, 5), ks = OptionChecks.InRange(parse.GetValue(kappaStar), "--kappa-star", 0, 5);
             if (ks > k) throw new InputException($"--kappa-star {ks} exceeds --kappa {k}");
             int n = parse.GetValue(pixels);
             if (n < 8 || n > 20000) throw new InputException($"--pixels {n}: expected 8 … 20000");
-            double lo = Range(parse.GetValue(mmin), "--mass-min", 1e-3, 100), hi = Range(parse.GetValue(mmax), "--mass-max", 1e-3, 100);
+            double lo = OptionChecks.InRange(parse.GetValue(mmin), "--mass-min", 1e-3, 100), hi = OptionChecks.InRange(parse.GetValue(mmax), "--mass-max", 1e-3, 100);
             if (hi <= lo) throw new InputException($"--mass-max {hi} must exceed --mass-min {lo}");
             var spec = new MapSpec
             {
                 Kappa = k, Gamma = g, KappaStar = ks,
-                SizeEinsteinRadii = Range(parse.GetValue(size), "--size", 1e-3, 1e5),
+                SizeEinsteinRadii = OptionChecks.InRange(parse.GetValue(size), "--size", 1e-3, 1e5),
                 Pixels = n,
-                RaysPerPixel = Range(parse.GetValue(rays), "--rays-per-pixel", 0.01, 1e6),
-                MarginEinsteinRadii = Range(parse.GetValue(margin), "--margin", 0, 1e4),
+                RaysPerPixel = OptionChecks.InRange(parse.GetValue(rays), "--rays-per-pixel", 0.01, 1e6),
+                MarginEinsteinRadii = OptionChecks.InRange(parse.GetValue(margin), "--margin", 0, 1e4),
                 Seed = parse.GetValue(seed),
                 Imf = new InitialMassFunction { Kind = parse.GetValue(imf)!, MinMassSolar = lo, MaxMassSolar = hi },
             };
@@ -72,8 +72,6 @@ public static class MicromapCommand
         return command;
     }
 
-    static double Range(double v, string name, double min, double max)
-        => double.IsFinite(v) && v >= min && v <= max ? v : throw new InputException($"{name} {v}: expected a value in [{min}, {max}]");
 
     static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 

@@ -34,9 +34,9 @@ public static class ReportCommand
             string outDir = parse.GetValue(output) ?? Path.Combine(catalog, "report");
             var settings = new H0ForecastSettings
             {
-                MinDelayDays = Positive(parse.GetValue(minDelay), "--min-delay-days"), DelayFloorDays = Positive(parse.GetValue(floorDays), "--delay-floor-days"),
-                MicrolensingFraction = NonNegative(parse.GetValue(micro), "--micro-fraction"), LensModelFraction = NonNegative(parse.GetValue(model), "--lens-model-floor"),
-                LineOfSightFraction = NonNegative(parse.GetValue(los), "--los-floor"),
+                MinDelayDays = OptionChecks.Above(parse.GetValue(minDelay), "--min-delay-days", 0), DelayFloorDays = OptionChecks.Above(parse.GetValue(floorDays), "--delay-floor-days", 0),
+                MicrolensingFraction = OptionChecks.InRange(parse.GetValue(micro), "--micro-fraction", 0, double.PositiveInfinity), LensModelFraction = OptionChecks.InRange(parse.GetValue(model), "--lens-model-floor", 0, double.PositiveInfinity),
+                LineOfSightFraction = OptionChecks.InRange(parse.GetValue(los), "--los-floor", 0, double.PositiveInfinity),
             };
             var report = Build(catalog, outDir, parse.GetValue(delays), Math.Max(0, parse.GetValue(gallery)), settings);
             context.Out.Write(report);
@@ -46,8 +46,6 @@ public static class ReportCommand
         return command;
     }
 
-    static double Positive(double v, string name) => double.IsFinite(v) && v > 0 ? v : throw new InputException($"{name} {v}: expected a value > 0");
-    static double NonNegative(double v, string name) => double.IsFinite(v) && v >= 0 ? v : throw new InputException($"{name} {v}: expected a value ≥ 0");
 
     /// <summary>Writes the report files and returns the Markdown summary.</summary>
     public static string Build(string catalog, string outDir, string? delaysPath, int galleryCount, H0ForecastSettings h0)
